@@ -1,0 +1,6 @@
+using Monitor.Analytics.Market;
+
+namespace Monitor.Files;
+
+/// <summary>The par yields of one date, sorted by tenor.</summary>
+public sealed record ParYieldSet(DateOnly AsOf, IReadOnlyList<ParYieldPoint> Points);
