@@ -1,0 +1,51 @@
+using Microsoft.Extensions.Options;
+
+namespace Monitor.Service.Hosting;
+
+/// <summary>Checks the transport section at start-up; each failure names the key, the value and the fix.</summary>
+public sealed class TransportOptionsValidator : IValidateOptions<TransportOptions>
+{
+    private readonly Func<string, string?> _environment;
+
+    public TransportOptionsValidator()
+        : this(Environment.GetEnvironmentVariable)
+    {
+    }
+
+    public TransportOptionsValidator(Func<string, string?> environment) => _environment = environment;
+
+    public ValidateOptionsResult Validate(string? name, TransportOptions options)
+    {
+        var failures = new List<string>();
+        if (!Enum.IsDefined(options.Kind))
+        {
+            failures.Add($"Transport:Kind: '{options.Kind}' is not a transport; use InMemory or RabbitMq.");
+        }
+        if (options.ConcurrentMessageLimit is < 1 or > 64)
+        {
+            failures.Add($"Transport:ConcurrentMessageLimit: {options.ConcurrentMessageLimit} is outside 1..64; use 1 to keep message order.");
+        }
+        if (options.Kind == TransportKind.RabbitMq)
+        {
+            var broker = options.Broker;
+            if (string.IsNullOrWhiteSpace(broker.Host))
+            {
+                failures.Add("Transport:Broker:Host: is blank; set the broker's host name, e.g. localhost.");
+            }
+            if (broker.Port is < 1 or > 65535)
+            {
+                failures.Add($"Transport:Broker:Port: {broker.Port} is not a TCP port; use 5672 (or 5671 with TLS).");
+            }
+            if (string.IsNullOrWhiteSpace(broker.VirtualHost))
+            {
+                failures.Add("Transport:Broker:VirtualHost: is blank; use / for the default virtual host.");
+            }
+            var (_, problem) = BrokerCredentials.Resolve(broker, _environment);
+            if (problem is not null)
+            {
+                failures.Add(problem);
+            }
+        }
+        return failures.Count == 0 ? ValidateOptionsResult.Success : ValidateOptionsResult.Fail(failures);
+    }
+}
