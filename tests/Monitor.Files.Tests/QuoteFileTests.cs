@@ -9,6 +9,7 @@ public class QuoteFileTests
     public void Reads_mid_bid_ask_and_yield_quotes()
     {
         const string text = """
+            # a comment before the header is allowed
             instrument_id,quote_time,bid,ask,mid,yield_pct,source
             # comment lines are skipped
             GV-2030,2026-03-02T14:30:00Z,,,99.5,,desk
