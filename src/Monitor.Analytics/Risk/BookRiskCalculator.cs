@@ -1,5 +1,6 @@
 using System.Globalization;
 using System.Numerics;
+using System.Runtime.CompilerServices;
 using System.Runtime.InteropServices;
 
 namespace Monitor.Analytics.Risk;
@@ -38,14 +39,13 @@ public static class BookRiskCalculator
         ArgumentNullException.ThrowIfNull(grid);
         var segment = ledger.GetSegment(curveKey);
         var rows = grid.RowsFor(segment.CurveKey);
-        if (segment.Count > 0 && segment.DateIndices[^1] >= grid.DateCount)
+        if (segment.Count > 0 && (segment.DateIndices[0] < 0 || segment.DateIndices[^1] >= grid.DateCount))
         {
             throw new InvalidOperationException(
                 string.Create(CultureInfo.InvariantCulture,
                     $"Ledger date index {segment.DateIndices[^1]} is beyond the grid's {grid.DateCount} dates: rebuild the grid after adding trades."));
         }
         Span<double> acc = stackalloc double[rows.Stride];
-        acc.Clear();
         Accumulate(segment.DateIndices, segment.Amounts, rows.Data, rows.Stride, acc);
         return new FactorExposures(rows.BaseFactorCount, rows.SpreadFactorCount, acc[..rows.Width]);
     }
@@ -65,17 +65,54 @@ public static class BookRiskCalculator
     }
 
     // acc[m] += amount_i * row(date_i)[m] over all entries; rows and acc are padded to whole SIMD vectors.
+    // Columns go in chunks of up to four vectors held in registers (one pass over the ledger per chunk): keeping the
+    // accumulators out of memory is what makes this loop fast. Indices were checked against the grid by the caller
+    // (ascending, the last below DateCount), so the loads skip bounds checks.
     private static void Accumulate(ReadOnlySpan<int> dateIndices, ReadOnlySpan<double> amounts, double[] data, int stride, Span<double> acc)
     {
-        var accV = MemoryMarshal.Cast<double, Vector<double>>(acc);
-        var all = data.AsSpan();
-        for (var i = 0; i < dateIndices.Length; i++)
+        var lanes = Vector<double>.Count;
+        var vectors = stride / lanes;
+        ref var rows = ref MemoryMarshal.GetArrayDataReference(data);
+        ref var index0 = ref MemoryMarshal.GetReference(dateIndices);
+        ref var amount0 = ref MemoryMarshal.GetReference(amounts);
+        var count = dateIndices.Length;
+        for (var first = 0; first < vectors; first += 4)
         {
-            var a = new Vector<double>(amounts[i]);
-            var row = MemoryMarshal.Cast<double, Vector<double>>(all.Slice(dateIndices[i] * stride, stride));
-            for (var v = 0; v < accV.Length; v++)
+            var width = Math.Min(4, vectors - first);
+            var column = (nuint)(first * lanes);
+            var n = (nuint)lanes;
+            Vector<double> a0 = default, a1 = default, a2 = default, a3 = default;
+            for (var i = 0; i < count; i++)
             {
-                accV[v] += a * row[v];
+                var a = new Vector<double>(Unsafe.Add(ref amount0, i));
+                var offset = (nuint)Unsafe.Add(ref index0, i) * (nuint)stride + column;
+                a0 += a * Vector.LoadUnsafe(ref rows, offset);
+                if (width > 1)
+                {
+                    a1 += a * Vector.LoadUnsafe(ref rows, offset + n);
+                }
+                if (width > 2)
+                {
+                    a2 += a * Vector.LoadUnsafe(ref rows, offset + 2 * n);
+                }
+                if (width > 3)
+                {
+                    a3 += a * Vector.LoadUnsafe(ref rows, offset + 3 * n);
+                }
+            }
+            var target = acc[(first * lanes)..];
+            a0.CopyTo(target);
+            if (width > 1)
+            {
+                a1.CopyTo(target[lanes..]);
+            }
+            if (width > 2)
+            {
+                a2.CopyTo(target[(2 * lanes)..]);
+            }
+            if (width > 3)
+            {
+                a3.CopyTo(target[(3 * lanes)..]);
             }
         }
     }

@@ -14,9 +14,10 @@ namespace Monitor.Analytics.Risk;
 /// <remarks>
 /// Memory: dates x keys x stride doubles, stride = 1 + n + n(n+1)/2 rounded up to the SIMD width
 /// (n = 3: 10 -> 12; NS base + NS spread, n = 6: 28; Svensson + Svensson: 45 -> 48).
-/// For example 10,000 dates, 10 keys, stride 28: 22 MB. Build cost: one exp and one set of loadings per
-/// date for the base curve and per date and key for the spreads. Immutable once built: safe to read from
-/// many threads.
+/// For example 10,000 dates, 10 keys, stride 28: 22 MB. Build cost: one set of loadings per date for the base curve, and one
+/// exp plus the spread loadings per date and key; keys are filled in parallel. Immutable once built: safe to
+/// read from many threads. The pure library uses <see cref="Parallel"/> here and in
+/// <see cref="BookRiskCalculator.ComputeAll"/>; it does no I/O.
 /// </remarks>
 public sealed class CurveGrid
 {
@@ -57,7 +58,7 @@ public sealed class CurveGrid
         {
             [CurveKey.Government] = new GridRows(nb, 0, count),
         };
-        var spreads = new List<(GridRows Rows, IFactorCurve Curve)>();
+        var spreads = new List<(GridRows Rows, IFactorCurve? Curve)>();
         foreach (var (key, curve) in spreadCurves ?? new Dictionary<string, IFactorCurve>())
         {
             if (CurveKey.IsGovernment(key))
@@ -71,26 +72,44 @@ public sealed class CurveGrid
             spreads.Add((keyRows, curve));
         }
 
-        Span<double> loadings = stackalloc double[PositionRisk.MaxFactorsPerCurve];
-        var government = rows[CurveKey.Government];
+        // Base curve once per date, then each curve key (government and every spread group) on its own thread:
+        // a spread row needs the base zero rate and loadings of its date.
+        var times = new double[count];
+        var baseZero = new double[count];
+        var baseLoadings = new double[count * nb];
         for (var d = 0; d < count; d++)
         {
             var t = CurveTime.YearsBetween(valuationDate, dates[d]);
-            if (t <= 0)
+            times[d] = t;
+            if (t > 0)
             {
-                continue; // rows stay zero: paid flows are worth nothing from here
-            }
-            var zb = baseCurve.ZeroRate(t);
-            baseCurve.Loadings(t, loadings[..nb]);
-            MomentLayout.FillUnitRow(t, Math.Exp(-zb * t), loadings[..nb], government.Row(d));
-            foreach (var (keyRows, curve) in spreads)
-            {
-                var n = nb + keyRows.SpreadFactorCount;
-                curve.Loadings(t, loadings[nb..n]);
-                var df = Math.Exp(-(zb + curve.ZeroRate(t)) * t);
-                MomentLayout.FillUnitRow(t, df, loadings[..n], keyRows.Row(d));
+                baseZero[d] = baseCurve.ZeroRate(t);
+                baseCurve.Loadings(t, baseLoadings.AsSpan(d * nb, nb));
             }
         }
+        var government = rows[CurveKey.Government];
+        Parallel.For(0, spreads.Count + 1, key =>
+        {
+            Span<double> loadings = stackalloc double[PositionRisk.MaxFactorsPerCurve];
+            var (keyRows, curve) = key == 0 ? (government, null) : spreads[key - 1];
+            var n = nb + keyRows.SpreadFactorCount;
+            for (var d = 0; d < count; d++)
+            {
+                var t = times[d];
+                if (t <= 0)
+                {
+                    continue; // rows stay zero: paid flows are worth nothing from here
+                }
+                baseLoadings.AsSpan(d * nb, nb).CopyTo(loadings);
+                var z = baseZero[d];
+                if (curve is not null)
+                {
+                    curve.Loadings(t, loadings[nb..n]);
+                    z += curve.ZeroRate(t);
+                }
+                MomentLayout.FillUnitRow(t, Math.Exp(-z * t), loadings[..n], keyRows.Row(d));
+            }
+        });
         return new CurveGrid(valuationDate, count, nb, rows);
     }
 
