@@ -58,9 +58,43 @@ public static class BookRiskCalculator
     {
         ArgumentNullException.ThrowIfNull(ledgers);
         ArgumentNullException.ThrowIfNull(grid);
-        var results = new BookRisk[ledgers.Count];
         var options = new ParallelOptions { MaxDegreeOfParallelism = maxDegreeOfParallelism };
-        Parallel.For(0, ledgers.Count, options, i => results[i] = Compute(ledgers[i], grid));
+        // Key-major: all books' flows on one curve key are summed while that key's rows are warm in cache
+        // (rows of all keys together can exceed the cache; the pass is bound by row traffic).
+        var keys = ledgers.SelectMany(l => l.CurveKeys).Distinct(StringComparer.Ordinal).Order(StringComparer.Ordinal).ToArray();
+        foreach (var ledger in ledgers)
+        {
+            foreach (var key in ledger.CurveKeys)
+            {
+                _ = ledger.GetSegment(key); // compact dirty ledgers before the parallel pass
+            }
+        }
+        var perKey = new FactorExposures?[keys.Length, ledgers.Count];
+        foreach (var (k, key) in keys.Index())
+        {
+            Parallel.For(0, ledgers.Count, options, i =>
+            {
+                if (ledgers[i].GetSegment(key).Count > 0)
+                {
+                    perKey[k, i] = ComputeForCurveKey(ledgers[i], grid, key);
+                }
+            });
+        }
+        var results = new BookRisk[ledgers.Count];
+        for (var i = 0; i < results.Length; i++)
+        {
+            var byKey = new Dictionary<string, FactorExposures>(StringComparer.Ordinal);
+            var total = FactorExposures.Zero(grid.BaseFactorCount, 0);
+            for (var k = 0; k < keys.Length; k++)
+            {
+                if (perKey[k, i] is { } exposures)
+                {
+                    byKey.Add(keys[k], exposures);
+                    total = total.Plus(exposures);
+                }
+            }
+            results[i] = new BookRisk(total, byKey);
+        }
         return results;
     }
 
