@@ -90,7 +90,7 @@ public sealed class CurveGrid
         var government = rows[CurveKey.Government];
         Parallel.For(0, spreads.Count + 1, key =>
         {
-            Span<double> loadings = stackalloc double[PositionRisk.MaxFactorsPerCurve];
+            Span<double> loadings = stackalloc double[PositionRisk.MaxFactors];
             var (keyRows, curve) = key == 0 ? (government, null) : spreads[key - 1];
             var n = nb + keyRows.SpreadFactorCount;
             for (var d = 0; d < count; d++)

@@ -10,8 +10,11 @@ namespace Monitor.Analytics.Risk;
 /// </summary>
 public static class PositionRisk
 {
-    /// <summary>Most factors a curve may have here (Svensson base 4 plus Svensson spread 4).</summary>
-    internal const int MaxFactorsPerCurve = 8;
+    /// <summary>Most factors one curve may have here (Svensson: 4).</summary>
+    internal const int MaxFactorsPerCurve = 4;
+
+    /// <summary>Most factors of base plus spread curve together.</summary>
+    internal const int MaxFactors = 2 * MaxFactorsPerCurve;
 
     /// <summary>
     /// Exposures of <paramref name="flows"/> (amounts in money, or per 100 face with scale = face / 100)
@@ -66,10 +69,10 @@ public static class PositionRisk
     internal static int CheckedFactorCount(IFactorCurve curve, string name)
     {
         var n = curve.FactorCount;
-        if (n < 1 || n > MaxFactorsPerCurve / 2)
+        if (n < 1 || n > MaxFactorsPerCurve)
         {
             throw new ArgumentException(
-                string.Create(CultureInfo.InvariantCulture, $"Curve '{name}' has {n} factors; 1 to {MaxFactorsPerCurve / 2} are supported."), name);
+                string.Create(CultureInfo.InvariantCulture, $"Curve '{name}' has {n} factors; 1 to {MaxFactorsPerCurve} are supported."), name);
         }
         return n;
     }
