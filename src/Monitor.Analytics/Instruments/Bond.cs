@@ -143,7 +143,10 @@ public sealed class Bond
             : 100.0 * rate * DayCounter.YearFraction(period.Start, period.End, period.ReferenceStart, period.ReferenceEnd, Frequency);
     }
 
-    /// <summary>Coupons and redemption (100) paid strictly after <paramref name="settlement"/>, per 100 face, in date order.</summary>
+    /// <summary>
+    /// Coupons and redemption (100) paid strictly after <paramref name="settlement"/>, per 100 face, in date order.
+    /// Any date is accepted (before issue: every flow; on or after maturity: none).
+    /// </summary>
     public IReadOnlyList<CashFlow> CashFlowsAfter(DateOnly settlement)
     {
         var flows = new List<CashFlow>();
