@@ -29,6 +29,29 @@ public static class CurvePricing
         return pv;
     }
 
+    /// <summary>Value of <paramref name="amounts"/> paid at curve times <paramref name="times"/> (years); t &lt;= 0 is skipped.</summary>
+    public static double PresentValue(IReadOnlyList<double> times, IReadOnlyList<double> amounts, IZeroCurve curve)
+    {
+        ArgumentNullException.ThrowIfNull(times);
+        ArgumentNullException.ThrowIfNull(amounts);
+        ArgumentNullException.ThrowIfNull(curve);
+        if (times.Count != amounts.Count)
+        {
+            throw new ArgumentException($"times and amounts must have the same length; times.Count = {times.Count}, amounts.Count = {amounts.Count}.", nameof(amounts));
+        }
+
+        double pv = 0;
+        for (var j = 0; j < times.Count; j++)
+        {
+            if (times[j] > 0)
+            {
+                pv += amounts[j] * curve.Discount(times[j]);
+            }
+        }
+
+        return pv;
+    }
+
     /// <summary>
     /// Dirty price per 100 face for settlement on <paramref name="settlement"/>: the flows after settlement, valued
     /// on the curve of <paramref name="valuationDate"/> and carried forward to settlement, PV / DF(t_settlement).
@@ -53,6 +76,10 @@ public static class CurvePricing
     /// <summary>Effective duration and convexity of the present value of <paramref name="flows"/>.</summary>
     public static EffectiveRisk Effective(IReadOnlyList<CashFlow> flows, IZeroCurve curve, DateOnly valuationDate, double shift = DefaultShift) =>
         EffectiveOf(c => PresentValue(flows, c, valuationDate), curve, shift);
+
+    /// <summary>Effective duration and convexity of amounts paid at curve times (years).</summary>
+    public static EffectiveRisk Effective(IReadOnlyList<double> times, IReadOnlyList<double> amounts, IZeroCurve curve, double shift = DefaultShift) =>
+        EffectiveOf(c => PresentValue(times, amounts, c), curve, shift);
 
     private static EffectiveRisk EffectiveOf(Func<IZeroCurve, double> price, IZeroCurve curve, double shift)
     {

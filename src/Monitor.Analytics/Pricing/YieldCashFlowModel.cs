@@ -1,3 +1,4 @@
+using Monitor.Analytics.Dates;
 using Monitor.Analytics.Instruments;
 
 namespace Monitor.Analytics.Pricing;
@@ -58,7 +59,7 @@ internal sealed class YieldCashFlowModel
         var exponents = new double[periods.Count - first];
         var freq = bond.Frequency;
         var p0 = periods[first];
-        var w = freq * bond.DayCounter.YearFraction(settlement, p0.End, p0.ReferenceStart, p0.ReferenceEnd, freq);
+        var w = PeriodsBetween(bond, settlement, p0);
         var exponent = w;
         for (var i = first; i < periods.Count; i++)
         {
@@ -66,9 +67,7 @@ internal sealed class YieldCashFlowModel
             if (i > first)
             {
                 // Whole periods count 1; an odd (short last) period counts its day-count fraction of a period.
-                exponent += period.IsRegular
-                    ? 1.0
-                    : freq * bond.DayCounter.YearFraction(period.Start, period.End, period.ReferenceStart, period.ReferenceEnd, freq);
+                exponent += period.IsRegular ? 1.0 : PeriodsBetween(bond, period.Start, period);
             }
 
             amounts[i - first] = bond.CouponAmount(period) + (i == periods.Count - 1 ? 100.0 : 0.0);
@@ -82,6 +81,21 @@ internal sealed class YieldCashFlowModel
             _ => false,
         };
         return new YieldCashFlowModel(amounts, exponents, freq, w, simpleStub, accrued);
+    }
+
+    /// <summary>
+    /// Coupon periods from <paramref name="from"/> to the end of <paramref name="period"/> (SIA's DSC/E). 30/360
+    /// bonds count 30/360 days over 360/f; every actual-day convention counts actual days over the actual days of
+    /// the (quasi-)coupon period, i.e. the ICMA fraction, so that a whole period is exactly 1 and a par bond prices
+    /// at 100 on a coupon date. Trap: f x ACT/360 year fraction would make a 92-day quarter 1.022 periods.
+    /// </summary>
+    private static double PeriodsBetween(Bond bond, DateOnly from, CouponPeriod period)
+    {
+        var f = bond.Frequency;
+        var counter = bond.DayCount is DayCountConvention.Thirty360BondBasis or DayCountConvention.Thirty360European
+            ? bond.DayCounter
+            : DayCounters.For(DayCountConvention.ActActIcma);
+        return f * counter.YearFraction(from, period.End, period.ReferenceStart, period.ReferenceEnd, f);
     }
 
     /// <summary>Time of flow <paramref name="j"/> in years, e_j / f.</summary>
