@@ -16,7 +16,7 @@ public sealed class ActActIcmaDayCounter : IDayCounter
     {
         if (frequency is not (1 or 2 or 3 or 4 or 6 or 12))
         {
-            throw new ArgumentOutOfRangeException(nameof(frequency), frequency, $"ACT/ACT (ICMA) needs a coupon frequency of 1, 2, 4 or 12 a year; frequency = {frequency}.");
+            throw new ArgumentOutOfRangeException(nameof(frequency), frequency, $"ACT/ACT (ICMA) needs a coupon frequency of 1, 2, 3, 4, 6 or 12 a year; frequency = {frequency}.");
         }
 
         if (referenceEnd <= referenceStart)

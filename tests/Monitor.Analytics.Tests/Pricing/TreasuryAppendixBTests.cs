@@ -120,4 +120,19 @@ public class TreasuryAppendixBTests
         Assert.Equal(expected, BondYield.FromCleanPrice(bill, settlement, price), 10);
         Assert.Equal(price, BondYield.CleanPrice(bill, settlement, expected), 10);
     }
+
+    [Fact]
+    public void Zero_coupon_beyond_half_a_year_compounds_semiannually()
+    {
+        // Bond-equivalent yield of a zero: P = 100 / (1 + y/2)^(2T), T = day-count years to maturity (common
+        // practice for semiannual markets, no source); within half a year the simple rate above applies, and the two
+        // meet at 2T = 1.
+        var zero = new Bond("ZERO-1", "Test Treasury", null, "USD", 0m, 0, Monitor.Analytics.Dates.DayCountConvention.Act365Fixed, Ymd(2020, 1, 6), null, Ymd(2027, 1, 6));
+        var settlement = Ymd(2023, 4, 17);
+        var years = (zero.MaturityDate.DayNumber - settlement.DayNumber) / 365.0;
+        Assert.Equal(100 / Math.Pow(1.0225, 2 * years), BondYield.CleanPrice(zero, settlement, 0.045), 10);
+        var m = BondYield.Measures(zero, settlement, 0.045);
+        Assert.Equal(years, m.MacaulayDuration, 12);
+        Assert.Equal(years / 1.0225, m.ModifiedDuration, 12);
+    }
 }
