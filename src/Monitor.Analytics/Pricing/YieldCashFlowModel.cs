@@ -101,23 +101,31 @@ internal sealed class YieldCashFlowModel
     /// <summary>Time of flow <paramref name="j"/> in years, e_j / f.</summary>
     public double Time(int j) => _exponents[j] / Frequency;
 
+    /// <summary>
+    /// The part of the stub discounted with simple interest: the fraction of a period up to the next (quasi-)coupon
+    /// date, w - (ceil(w) - 1). For a long first period (w &gt; 1) the whole periods beyond it compound
+    /// (31 CFR 356 App. B, II.C: [1 + (r/s)(i/2)] with r, s of the initial short portion, then v for the rest).
+    /// </summary>
+    public double SimpleFraction => Stub - (Math.Ceiling(Stub) - 1.0);
+
     /// <summary>Dirty price at yield <paramref name="y"/> with first and second derivatives in y.</summary>
     public (double Price, double First, double Second) Evaluate(double y)
     {
         double f = Frequency;
+        var a = SimpleFraction;
         var baseFactor = 1.0 + (y / f);
-        var stubFactor = 1.0 + (Stub * y / f);
+        var stubFactor = 1.0 + (a * y / f);
         double p = 0, d1 = 0, d2 = 0;
         for (var j = 0; j < _amounts.Length; j++)
         {
-            // ln d = -a ln(stubFactor) - k ln(baseFactor); compounded: a = 0, k = e_j.
+            // ln d = -ln(1 + a y/f) - k ln(1 + y/f) with k = e_j - a (simple stub), or -e_j ln(1 + y/f) (compounded).
             double g1, g2, d;
             if (SimpleStub)
             {
-                var k = _exponents[j] - Stub;
+                var k = _exponents[j] - a;
                 d = Math.Pow(baseFactor, -k) / stubFactor;
-                g1 = (-(Stub / f) / stubFactor) - (k / f / baseFactor);
-                g2 = (Stub / f * (Stub / f) / (stubFactor * stubFactor)) + (k / (f * f) / (baseFactor * baseFactor));
+                g1 = (-(a / f) / stubFactor) - (k / f / baseFactor);
+                g2 = (a / f * (a / f) / (stubFactor * stubFactor)) + (k / (f * f) / (baseFactor * baseFactor));
             }
             else
             {
@@ -141,10 +149,11 @@ internal sealed class YieldCashFlowModel
     {
         double sum = 0;
         double f = Frequency;
+        var a = SimpleFraction;
         for (var j = 0; j < _amounts.Length; j++)
         {
             var d = SimpleStub
-                ? Math.Pow(1.0 + (y / f), -(_exponents[j] - Stub)) / (1.0 + (Stub * y / f))
+                ? Math.Pow(1.0 + (y / f), -(_exponents[j] - a)) / (1.0 + (a * y / f))
                 : Math.Pow(1.0 + (y / f), -_exponents[j]);
             sum += Time(j) * _amounts[j] * d;
         }

@@ -9,7 +9,7 @@ public enum YieldConvention
 {
     /// <summary>
     /// Street convention: compounded, v^(w + k) with v = 1/(1 + y/f); when only the final coupon remains, simple
-    /// interest P = CF / (1 + w y / f) (SIA Standard Securities Calculation Methods, the "6 months or less to
+    /// interest P = CF / (1 + w y / f) (for w &lt;= 1; SIA Standard Securities Calculation Methods, the "6 months or less to
     /// maturity" formula as printed in the HP 12C manual, App. "Formulas Used"; the same as 31 CFR 356 App. B, II
     /// with n = 0). A zero-coupon bond within half a year of maturity is likewise priced with simple interest.
     /// </summary>
@@ -19,8 +19,9 @@ public enum YieldConvention
     Compounded,
 
     /// <summary>
-    /// US Treasury auction formula (31 CFR 356, App. B, II): the fractional period to the next coupon is discounted
-    /// with simple interest, 1 / (1 + w y / f), the remaining whole periods compounded.
+    /// US Treasury auction formula (31 CFR 356, App. B, II): the fraction of a period up to the next (quasi-)coupon
+    /// date is discounted with simple interest, 1 / (1 + (r/s) y / f), the remaining whole periods compounded (in a
+    /// long first period one whole period sits between the quasi-coupon date and the first coupon).
     /// </summary>
     TreasuryAuction,
 }
