@@ -26,6 +26,36 @@ public class BondYieldTests
     }
 
     [Fact]
+    public void Textbook_twenty_year_bond_price_and_modified_duration()
+    {
+        // F. J. Fabozzi, Bond Markets, Analysis, and Strategies, chapter on measuring interest-rate risk: a 9% 20-year
+        // semiannual bond priced to yield 6% costs 134.6722 and has modified duration 10.66. From memory: edition and
+        // page not checked. Settled on a coupon date, so no stub.
+        var bond = TestBonds.Fixed(0.09m, Ymd(2004, 3, 1), Ymd(2024, 3, 1));
+        var m = BondYield.Measures(bond, Ymd(2004, 3, 1), 0.06);
+        Assert.Equal(134.6722, m.CleanPrice, 4);
+        Assert.Equal(10.66, m.ModifiedDuration, 2);
+        Assert.Equal(m.ModifiedDuration * 1.03, m.MacaulayDuration, 12);
+    }
+
+    [Fact]
+    public void Street_equals_compounded_while_two_or_more_flows_remain()
+    {
+        // Street convention only departs from compounding in the final period (SIA; see YieldConvention.Street).
+        for (var settlement = Ymd(2022, 2, 15); settlement < Ymd(2031, 8, 15); settlement = settlement.AddDays(37))
+        {
+            var street = BondYield.Measures(TenYear, settlement, 0.037);
+            var compounded = BondYield.Measures(TenYear, settlement, 0.037, YieldConvention.Compounded);
+            Assert.Equal(compounded, street);
+        }
+
+        var last = Ymd(2031, 9, 1);
+        Assert.NotEqual(
+            BondYield.DirtyPrice(TenYear, last, 0.037, YieldConvention.Compounded),
+            BondYield.DirtyPrice(TenYear, last, 0.037));
+    }
+
+    [Fact]
     public void Clean_plus_accrued_is_dirty()
     {
         var m = BondYield.Measures(TenYear, Settlement, 0.045);
