@@ -1,0 +1,25 @@
+using Monitor.Analytics.Fitting;
+
+namespace Monitor.Service.Engine;
+
+/// <summary>What the engine needs to know beyond its inputs: the valuation date, the fit settings and the quality gates.</summary>
+public sealed record EngineSettings
+{
+    /// <summary>
+    /// The date positions are valued at and curve time starts from: the spot (settlement) date of the
+    /// government bonds for today's trade date. Bonds with another lag are fitted from their own
+    /// settlement date, a day or two apart (common practice, no source).
+    /// </summary>
+    public required DateOnly ValuationDate { get; init; }
+
+    public CurveFitOptions BaseFit { get; init; } = new() { Model = CurveModel.NelsonSiegel };
+
+    public CurveFitOptions SpreadFit { get; init; } = new() { Model = CurveModel.NelsonSiegel };
+
+    public FitQualityGate BaseGate { get; init; } = new(MaxRmseBp: 5, MaxAbsErrorBp: 25, MinInstruments: 6);
+
+    public FitQualityGate SpreadGate { get; init; } = new(MaxRmseBp: 15, MaxAbsErrorBp: 60, MinInstruments: 4);
+
+    /// <summary>A quote older than this when a curve is fitted is left out as stale.</summary>
+    public TimeSpan StaleAfter { get; init; } = TimeSpan.FromHours(4);
+}

@@ -1,0 +1,404 @@
+using System.Diagnostics;
+using System.Globalization;
+using Monitor.Analytics.Curves;
+using Monitor.Analytics.Dates;
+using Monitor.Analytics.Fitting;
+using Monitor.Analytics.Instruments;
+using Monitor.Analytics.Market;
+using Monitor.Analytics.Pricing;
+using Monitor.Analytics.Risk;
+using Monitor.Limits;
+using Monitor.Service.Messaging;
+
+namespace Monitor.Service.Engine;
+
+/// <summary>
+/// The monitor's state and its rules, free of messaging and I/O: instruments, the latest quotes per curve,
+/// the fitted curves, books (positions merged into cash flows by date) and limit statuses.
+/// Every input either changes state and says what changed (an <see cref="EngineResult"/>), or throws a
+/// <see cref="MessageRejectedException"/> before touching anything. Not thread-safe: one caller at a time.
+/// All state is held by the instance (no static state), so books can later be split across instances.
+/// </summary>
+public sealed class RiskEngine
+{
+    private readonly Dictionary<string, Bond> _instruments = new(StringComparer.Ordinal);
+    private readonly Dictionary<string, IReadOnlyList<CashFlow>> _flows = new(StringComparer.Ordinal);
+    private readonly Dictionary<string, CurveState> _curves = new(StringComparer.Ordinal);
+    private readonly Dictionary<string, BookState> _books = new(StringComparer.Ordinal);
+    private readonly CashFlowDateIndex _dates = new();
+    private readonly BondCurveFitter _baseFitter = new();
+    private readonly Dictionary<string, SpreadCurveFitter> _spreadFitters = new(StringComparer.Ordinal);
+    private readonly TradeRegister _trades = new();
+    private LimitSet _limits;
+
+    public RiskEngine(EngineSettings settings, LimitsConfiguration limits)
+    {
+        Settings = settings ?? throw new ArgumentNullException(nameof(settings));
+        ArgumentNullException.ThrowIfNull(limits);
+        _limits = limits.CreateLimitSet();
+        _curves[CurveKey.Government] = new CurveState(CurveKey.Government);
+        foreach (var book in limits.Hierarchy.Books)
+        {
+            _books[book] = new BookState(book, limits.Hierarchy.DeskOf(book), _dates);
+        }
+    }
+
+    public EngineSettings Settings { get; }
+
+    public DateOnly ValuationDate => Settings.ValuationDate;
+
+    public IReadOnlyDictionary<string, Bond> Instruments => _instruments;
+
+    public IReadOnlyDictionary<string, CurveState> Curves => _curves;
+
+    public IReadOnlyDictionary<string, BookState> Books => _books;
+
+    public LimitSet Limits => _limits;
+
+    public TradeRegister Trades => _trades;
+
+    /// <summary>Adds or replaces a bond's reference data. A bond already held in a book may not change.</summary>
+    public void DefineInstrument(Bond bond)
+    {
+        ArgumentNullException.ThrowIfNull(bond);
+        if (_instruments.TryGetValue(bond.Id, out var existing) && !SameTerms(existing, bond) && IsHeld(bond.Id))
+        {
+            throw new MessageRejectedException("id", bond.Id, "is held in a book and its terms differ from the ones in use; amend reference data after the positions are closed.");
+        }
+        _instruments[bond.Id] = bond;
+        _flows[bond.Id] = bond.MaturityDate > ValuationDate ? bond.CashFlowsAfter(ValuationDate) : [];
+        var key = CurveKey.Normalize(bond.SpreadGroup);
+        if (!_curves.ContainsKey(key))
+        {
+            _curves[key] = new CurveState(key);
+        }
+    }
+
+    /// <summary>Keeps the quote as the newest for its bond and marks its curve for a refit. Returns the curve key.</summary>
+    public string AcceptQuote(BondQuote quote, DateTimeOffset now)
+    {
+        ArgumentNullException.ThrowIfNull(quote);
+        var bond = RequireInstrument(quote.InstrumentId, "instrumentId");
+        if (quote.QuoteTime > now + TimeSpan.FromMinutes(5))
+        {
+            throw new MessageRejectedException("quoteTime", Iso(quote.QuoteTime), $"is in the future (now {Iso(now)}); check the source's clock.");
+        }
+        if (quote.QuoteTime < now - TimeSpan.FromDays(7))
+        {
+            throw new MessageRejectedException("quoteTime", Iso(quote.QuoteTime), $"is more than 7 days old (now {Iso(now)}).");
+        }
+        var priced = Price(bond, quote);
+        var curve = _curves[CurveKey.Normalize(bond.SpreadGroup)];
+        if (curve.LatestQuotes.TryGetValue(bond.Id, out var previous) && previous.Quote.QuoteTime > quote.QuoteTime)
+        {
+            return curve.Key; // an older quote arriving late never replaces a newer one
+        }
+        curve.LatestQuotes[bond.Id] = priced;
+        curve.Dirty = true;
+        return curve.Key;
+    }
+
+    /// <summary>Curves with quotes waiting for a refit.</summary>
+    public IReadOnlyList<string> DirtyCurves() => _curves.Values.Where(c => c.Dirty).Select(c => c.Key).ToArray();
+
+    /// <summary>
+    /// Refits every curve with new quotes (the government curve first: spread curves sit on it, so a new
+    /// government curve refits them all), then revalues the books that hold bonds on a changed curve and
+    /// evaluates their limits.
+    /// </summary>
+    public EngineResult RefitDirtyCurves(DateTimeOffset now)
+    {
+        var result = new EngineResult();
+        var changed = new HashSet<string>(StringComparer.Ordinal);
+        var government = _curves[CurveKey.Government];
+        if (government.Dirty)
+        {
+            var outcome = FitGovernment(government, now);
+            result.Curves.Add(outcome);
+            if (outcome.Accepted)
+            {
+                changed.Add(government.Key);
+            }
+        }
+        if (government.Curve is null)
+        {
+            return result;
+        }
+        foreach (var curve in _curves.Values.Where(c => !CurveKey.IsGovernment(c.Key)).OrderBy(c => c.Key, StringComparer.Ordinal))
+        {
+            if (curve.Dirty || (changed.Contains(CurveKey.Government) && curve.LatestQuotes.Count > 0))
+            {
+                var outcome = FitSpread(curve, government.Curve, now);
+                result.Curves.Add(outcome);
+                if (outcome.Accepted)
+                {
+                    changed.Add(curve.Key);
+                }
+            }
+        }
+        if (changed.Count > 0)
+        {
+            var affected = _books.Values.Where(b => changed.Contains(CurveKey.Government) || b.Ledger.CurveKeys.Any(changed.Contains));
+            Revalue(affected, now, result);
+        }
+        return result;
+    }
+
+    /// <summary>Loads a start-of-day position (no trade id, no limit events until the first revaluation).</summary>
+    public void LoadPosition(string book, string instrumentId, double faceAmount)
+    {
+        var state = RequireBook(book, "book");
+        var bond = RequireInstrument(instrumentId, "instrumentId");
+        CheckFace(faceAmount);
+        Move(state, bond, faceAmount);
+    }
+
+    /// <summary>Applies a trade (new, amend or cancel by version) to its book and revalues that book only.</summary>
+    public EngineResult ApplyTrade(TradeInput trade, DateTimeOffset now)
+    {
+        ArgumentNullException.ThrowIfNull(trade);
+        var book = RequireBook(trade.Book, "book");
+        var bond = RequireInstrument(trade.InstrumentId, "instrumentId");
+        CheckFace(trade.FaceAmount);
+        if (trade.Action != TradeAction.Cancel && bond.MaturityDate <= ValuationDate)
+        {
+            throw new MessageRejectedException("instrumentId", trade.InstrumentId, $"matured on {bond.MaturityDate:yyyy-MM-dd}; it cannot be traded.");
+        }
+        if (!double.IsFinite(trade.CleanPrice) || trade.CleanPrice <= 0 || trade.CleanPrice > BondQuote.MaxPrice)
+        {
+            throw new MessageRejectedException("cleanPrice", trade.CleanPrice.ToString("G", CultureInfo.InvariantCulture), $"is outside (0, {BondQuote.MaxPrice}] per 100 face.");
+        }
+        var (outcome, previous) = _trades.Classify(trade);
+        var result = new EngineResult { Trade = outcome };
+        if (outcome != TradeOutcome.Applied)
+        {
+            return result;
+        }
+        var touched = new List<BookState>(2);
+        if (previous is not null)
+        {
+            var oldBook = _books[previous.Book];
+            Move(oldBook, _instruments[previous.InstrumentId], -previous.FaceAmount);
+            touched.Add(oldBook);
+        }
+        if (trade.Action != TradeAction.Cancel)
+        {
+            Move(book, bond, trade.FaceAmount);
+            if (!touched.Contains(book))
+            {
+                touched.Add(book);
+            }
+        }
+        _trades.Record(trade);
+        if (_curves[CurveKey.Government].Curve is not null)
+        {
+            Revalue(touched, now, result);
+        }
+        return result;
+    }
+
+    /// <summary>Replaces the limits (a reload of the limits file). Books new to the hierarchy start empty.</summary>
+    public LimitReloadResult ReloadLimits(LimitsConfiguration limits, DateTimeOffset now)
+    {
+        ArgumentNullException.ThrowIfNull(limits);
+        foreach (var book in _books.Values.Where(b => b.Positions.Count > 0 && !limits.Hierarchy.ContainsBook(b.Id)))
+        {
+            throw new LimitConfigurationException([new LimitValidationError("books", book.Id, $"book {book.Id} holds positions and cannot be dropped from the hierarchy")]);
+        }
+        var reload = _limits.Reload(limits.Hierarchy, limits.Limits, now);
+        foreach (var book in limits.Hierarchy.Books.Where(b => !_books.ContainsKey(b)))
+        {
+            _books[book] = new BookState(book, limits.Hierarchy.DeskOf(book), _dates);
+        }
+        return reload;
+    }
+
+    /// <summary>Revalues every book (start of day, end of day, after a reload).</summary>
+    public EngineResult RevalueAll(DateTimeOffset now)
+    {
+        var result = new EngineResult();
+        if (_curves[CurveKey.Government].Curve is not null)
+        {
+            Revalue(_books.Values, now, result);
+        }
+        return result;
+    }
+
+    /// <summary>"government v4, UTIL-A v2": the curves figures are computed on.</summary>
+    public string CurvesInUse() =>
+        string.Join(", ", _curves.Values.Where(c => c.Curve is not null).OrderBy(c => c.Key, StringComparer.Ordinal).Select(c => $"{c.Label} v{c.Version}"));
+
+    private CurveFitOutcome FitGovernment(CurveState curve, DateTimeOffset now)
+    {
+        var (instruments, excluded) = FitInputs(curve, now);
+        var result = _baseFitter.Fit(instruments, Settings.BaseFit, curve.Current?.Parameters, excluded);
+        return Conclude(curve, result, Settings.BaseGate, now, instruments.Count + excluded.Count);
+    }
+
+    private CurveFitOutcome FitSpread(CurveState curve, IZeroCurve baseCurve, DateTimeOffset now)
+    {
+        if (!_spreadFitters.TryGetValue(curve.Key, out var fitter))
+        {
+            _spreadFitters[curve.Key] = fitter = new SpreadCurveFitter();
+        }
+        var (instruments, excluded) = FitInputs(curve, now);
+        var result = fitter.Fit(baseCurve, instruments, Settings.SpreadFit, curve.Current?.Parameters, excluded);
+        return Conclude(curve, result, Settings.SpreadGate, now, instruments.Count + excluded.Count);
+    }
+
+    private static CurveFitOutcome Conclude(CurveState curve, CurveFitResult result, FitQualityGate gate, DateTimeOffset now, int offered)
+    {
+        curve.Dirty = false;
+        curve.LastReport = result.Report;
+        var verdict = gate.Evaluate(result.Report);
+        curve.LastFitRejected = !verdict.Passed;
+        if (!verdict.Passed)
+        {
+            return new CurveFitOutcome(curve.Key, false, result, verdict, curve.Version, curve.FittedAt, offered);
+        }
+        curve.Current = result;
+        curve.Version++;
+        curve.FittedAt = now;
+        return new CurveFitOutcome(curve.Key, true, result, verdict, curve.Version, null, offered);
+    }
+
+    private (List<FitInstrument> Instruments, List<FitExclusion> Excluded) FitInputs(CurveState curve, DateTimeOffset now)
+    {
+        var instruments = new List<FitInstrument>(curve.LatestQuotes.Count);
+        var excluded = new List<FitExclusion>();
+        foreach (var q in curve.LatestQuotes.Values.OrderBy(q => q.Bond.MaturityDate).ThenBy(q => q.Bond.Id, StringComparer.Ordinal))
+        {
+            if (q.Bond.MaturityDate <= ValuationDate)
+            {
+                excluded.Add(new FitExclusion(q.Bond.Id, FitExclusionReason.Matured, $"matured {q.Bond.MaturityDate:yyyy-MM-dd}"));
+            }
+            else if (now - q.Quote.QuoteTime > Settings.StaleAfter)
+            {
+                excluded.Add(new FitExclusion(q.Bond.Id, FitExclusionReason.Stale, $"quoted {Iso(q.Quote.QuoteTime)}, older than {Settings.StaleAfter}"));
+            }
+            else
+            {
+                instruments.Add(new FitInstrument(q.Bond.Id, q.Times, q.Amounts, q.DirtyPrice, q.ModifiedDuration));
+            }
+        }
+        return (instruments, excluded);
+    }
+
+    private void Revalue(IEnumerable<BookState> books, DateTimeOffset now, EngineResult result)
+    {
+        var clock = Stopwatch.StartNew();
+        var government = _curves[CurveKey.Government].Curve!;
+        var spreads = _curves.Values
+            .Where(c => !CurveKey.IsGovernment(c.Key) && c.Curve is not null)
+            .ToDictionary(c => c.Key, c => c.Curve!, StringComparer.Ordinal);
+        var grid = CurveGrid.Build(_dates, ValuationDate, government, spreads);
+        foreach (var book in books)
+        {
+            if (book.Ledger.CurveKeys.Any(k => !CurveKey.IsGovernment(k) && !spreads.ContainsKey(k)))
+            {
+                result.BooksAwaitingCurves.Add(book.Id);
+                continue;
+            }
+            var risk = BookRiskCalculator.Compute(book.Ledger, grid);
+            var exposures = ExposureMapping.ToBookExposures(risk);
+            book.Risk = risk;
+            book.Exposures = exposures;
+            book.UpdatedAt = now;
+            result.Books.Add(new BookUpdate(book.Id, exposures, risk));
+            result.StatusChanges.AddRange(_limits.UpdateBook(book.Id, exposures, now));
+        }
+        result.ExposureMilliseconds += clock.Elapsed.TotalMilliseconds;
+        result.CurvesUsed = CurvesInUse();
+    }
+
+    private void Move(BookState book, Bond bond, double faceAmount)
+    {
+        var flows = _flows[bond.Id];
+        book.Ledger.Add(bond.SpreadGroup, flows, faceAmount / 100.0);
+        var held = book.Positions.GetValueOrDefault(bond.Id) + faceAmount;
+        if (Math.Abs(held) < 1e-6)
+        {
+            book.Positions.Remove(bond.Id);
+        }
+        else
+        {
+            book.Positions[bond.Id] = held;
+        }
+    }
+
+    private PricedQuote Price(Bond bond, BondQuote quote)
+    {
+        var settlement = SettlementOf(bond);
+        if (bond.MaturityDate <= settlement)
+        {
+            throw new MessageRejectedException("instrumentId", bond.Id, $"matured on {bond.MaturityDate:yyyy-MM-dd}; quotes for it are not used.");
+        }
+        double clean;
+        double yield;
+        try
+        {
+            if (quote.CleanMid is { } mid)
+            {
+                clean = mid;
+                yield = BondYield.FromCleanPrice(bond, settlement, clean);
+            }
+            else
+            {
+                yield = quote.Yield!.Value;
+                clean = BondYield.CleanPrice(bond, settlement, yield);
+            }
+        }
+        catch (ArgumentException ex)
+        {
+            throw new MessageRejectedException(quote.CleanMid is null ? "yield" : "mid", (quote.CleanMid ?? quote.Yield)?.ToString("G", CultureInfo.InvariantCulture), ex.Message);
+        }
+        var measures = BondYield.Measures(bond, settlement, yield);
+        var flows = bond.CashFlowsAfter(settlement);
+        var times = new double[flows.Count];
+        var amounts = new double[flows.Count];
+        for (var i = 0; i < flows.Count; i++)
+        {
+            times[i] = CurveTime.YearsBetween(settlement, flows[i].Date);
+            amounts[i] = flows[i].Amount;
+        }
+        return new PricedQuote(quote, bond, settlement, clean, clean + measures.AccruedInterest, yield, measures.ModifiedDuration, times, amounts);
+    }
+
+    /// <summary>A bond settles its own lag after the trade date that the valuation date is spot for (government lag 1).</summary>
+    private DateOnly SettlementOf(Bond bond)
+    {
+        var calendar = BusinessCalendar.WeekendsOnly;
+        var tradeDate = ValuationDate.AddDays(-1);
+        while (!calendar.IsBusinessDay(tradeDate))
+        {
+            tradeDate = tradeDate.AddDays(-1);
+        }
+        return calendar.SettlementDate(tradeDate, bond.SettlementLagDays);
+    }
+
+    private Bond RequireInstrument(string id, string field) =>
+        _instruments.TryGetValue(id, out var bond)
+            ? bond
+            : throw new MessageRejectedException(field, id, "is not a known instrument; define it first (InstrumentDefined or the instruments file).");
+
+    private BookState RequireBook(string id, string field) =>
+        _books.TryGetValue(id, out var book)
+            ? book
+            : throw new MessageRejectedException(field, id, "is not a book of the limits hierarchy; add it to the limits file.");
+
+    private static void CheckFace(double face)
+    {
+        if (!double.IsFinite(face) || face == 0 || Math.Abs(face) > 1e12)
+        {
+            throw new MessageRejectedException("faceAmount", face.ToString("G", CultureInfo.InvariantCulture), "must be a non-zero amount no larger than 1e12 in size.");
+        }
+    }
+
+    private bool IsHeld(string instrumentId) => _books.Values.Any(b => b.Positions.ContainsKey(instrumentId));
+
+    private static bool SameTerms(Bond a, Bond b) =>
+        a.CouponRate == b.CouponRate && a.Frequency == b.Frequency && a.DayCount == b.DayCount && a.IssueDate == b.IssueDate
+        && a.FirstCouponDate == b.FirstCouponDate && a.MaturityDate == b.MaturityDate && a.Face == b.Face && a.SpreadGroup == b.SpreadGroup;
+
+    private static string Iso(DateTimeOffset time) => time.ToString("O", CultureInfo.InvariantCulture);
+}
