@@ -308,7 +308,8 @@ public static partial class LimitsFileParser
                     return null;
                 }
 
-                return firm is null ? null : LimitScope.Firm(firm);
+                // A missing firm is reported at "firm"; keep checking the limit's other fields.
+                return LimitScope.Firm(firm ?? "(missing firm)");
             case "desk":
                 if (scopeId is null)
                 {
