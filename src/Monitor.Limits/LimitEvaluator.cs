@@ -21,8 +21,14 @@ public static class LimitEvaluator
     /// <param name="utilisation">Exposure / bound on the side approached (&gt;= 0).</param>
     /// <param name="warningFraction">Warning threshold, in (0, 1].</param>
     /// <param name="hysteresisFraction">Band below each threshold, in [0, warningFraction).</param>
+    /// <exception cref="ArgumentOutOfRangeException">Utilisation is NaN (it would silently read as Within).</exception>
     public static LimitStatus Next(LimitStatus previous, double utilisation, double warningFraction, double hysteresisFraction)
     {
+        if (double.IsNaN(utilisation))
+        {
+            throw new ArgumentOutOfRangeException(nameof(utilisation), utilisation, "Utilisation must be a number, got NaN.");
+        }
+
         var raw = Classify(utilisation, warningFraction, 1.0);
         var held = Classify(utilisation, warningFraction - hysteresisFraction, 1.0 - hysteresisFraction);
         var kept = (LimitStatus)Math.Min((int)previous, (int)held);

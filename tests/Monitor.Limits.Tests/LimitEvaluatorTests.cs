@@ -99,6 +99,10 @@ public class LimitEvaluatorTests
         Assert.Contains("l1", e.Message, StringComparison.Ordinal);
     }
 
+    [Fact]
+    public void Nan_utilisation_is_rejected_rather_than_read_as_within() =>
+        Assert.Throws<ArgumentOutOfRangeException>(() => LimitEvaluator.Next(LimitStatus.Breach, double.NaN, Warning, Band));
+
     // Property: utilisation wandering within +/- a of a threshold, with a below the band h, causes at
     // most one status change (the crossing on the way up), whatever the path. The thresholds are
     // chosen so the other threshold stays out of reach of the noise.
