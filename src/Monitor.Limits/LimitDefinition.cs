@@ -37,6 +37,12 @@ public sealed record LimitDefinition
     /// </summary>
     public double HysteresisFraction { get; init; } = 0.05;
 
+    /// <summary>
+    /// Optional filter: the limit bounds only the exposure to bonds of this spread group (sector /
+    /// rating bucket) within the scope. Null: all positions.
+    /// </summary>
+    public string? SpreadGroup { get; init; }
+
     /// <summary>A temporary limit stops applying at this instant (evaluated against a time passed in). Null: permanent.</summary>
     public DateTimeOffset? ExpiresAt { get; init; }
 
@@ -86,6 +92,11 @@ public sealed record LimitDefinition
         if (!Enum.IsDefined(Scope.Level))
         {
             Add(nameof(Scope), Scope.Level.ToString(), "is not a scope level", "use firm, desk or book");
+        }
+
+        if (SpreadGroup is not null && string.IsNullOrWhiteSpace(SpreadGroup))
+        {
+            Add(nameof(SpreadGroup), Quote(SpreadGroup), "is empty", "name a spread group such as \"corp-a\", or leave it out for all positions");
         }
 
         if (!Enum.IsDefined(Measure))

@@ -19,7 +19,7 @@ public sealed class LimitSet
     private readonly Dictionary<string, LimitDefinition> _limits = new(StringComparer.Ordinal);
     private readonly Dictionary<LimitScope, List<LimitDefinition>> _limitsByScope = [];
     private readonly Dictionary<string, LimitStatus> _statuses = new(StringComparer.Ordinal);
-    private readonly Dictionary<string, IReadOnlyDictionary<ExposureMeasure, double>> _bookExposures = new(StringComparer.Ordinal);
+    private readonly Dictionary<string, BookExposures> _bookExposures = new(StringComparer.Ordinal);
 
     /// <exception cref="LimitConfigurationException">Any invalid definition, duplicate id or unknown scope; lists them all.</exception>
     public LimitSet(BookHierarchy hierarchy, IEnumerable<LimitDefinition> limits)
@@ -45,19 +45,22 @@ public sealed class LimitSet
     public LimitStatus StatusOf(string limitId) =>
         _statuses.TryGetValue(limitId, out var s) ? s : throw new KeyNotFoundException($"Limit '{limitId}' is not defined.");
 
-    /// <summary>The book's last reported exposures; empty when none were reported yet.</summary>
+    /// <summary>The book's last reported total exposures; empty when none were reported yet.</summary>
     public IReadOnlyDictionary<ExposureMeasure, double> ExposuresOf(string bookId) =>
-        _bookExposures.TryGetValue(bookId, out var e) ? e : new Dictionary<ExposureMeasure, double>();
+        _bookExposures.TryGetValue(bookId, out var e) ? e.Totals : new Dictionary<ExposureMeasure, double>();
 
-    /// <summary>The scope's exposure: the sum over its books of the measure (a book without a figure counts 0).</summary>
-    public double ExposureOf(LimitScope scope, ExposureMeasure measure)
+    /// <summary>
+    /// The scope's exposure: the sum over its books of the measure, over all positions or, with
+    /// <paramref name="spreadGroup"/>, over the bonds of that spread group (a missing figure counts 0).
+    /// </summary>
+    public double ExposureOf(LimitScope scope, ExposureMeasure measure, string? spreadGroup = null)
     {
         var sum = 0.0;
         foreach (var book in Hierarchy.BooksUnder(scope))
         {
-            if (_bookExposures.TryGetValue(book, out var figures) && figures.TryGetValue(measure, out var value))
+            if (_bookExposures.TryGetValue(book, out var figures))
             {
-                sum += value;
+                sum += figures.Get(measure, spreadGroup);
             }
         }
 
@@ -71,22 +74,30 @@ public sealed class LimitSet
     /// <returns>The status changes, book scope first, then desk, then firm.</returns>
     /// <exception cref="KeyNotFoundException">Unknown book.</exception>
     /// <exception cref="ArgumentOutOfRangeException">A non-finite exposure; the message names book, measure and value. State is left untouched.</exception>
-    public IReadOnlyList<LimitStatusChange> UpdateBook(string bookId, IReadOnlyDictionary<ExposureMeasure, double> exposures, DateTimeOffset asOf)
+    public IReadOnlyList<LimitStatusChange> UpdateBook(string bookId, IReadOnlyDictionary<ExposureMeasure, double> exposures, DateTimeOffset asOf) =>
+        UpdateBook(bookId, BookExposures.FromTotals(exposures ?? throw new ArgumentNullException(nameof(exposures))), asOf);
+
+    /// <summary>As the overload with totals, with a spread-group breakdown for limits filtered by spread group.</summary>
+    public IReadOnlyList<LimitStatusChange> UpdateBook(string bookId, BookExposures exposures, DateTimeOffset asOf)
     {
         var scopes = CheckBookUpdate(bookId, exposures);
-        _bookExposures[bookId] = new Dictionary<ExposureMeasure, double>(exposures);
+        _bookExposures[bookId] = exposures.Snapshot();
         return EvaluateScopes(scopes, asOf, commit: true);
     }
 
     /// <summary>
-    /// What-if: the status changes <see cref="UpdateBook"/> would produce for these exposures, without
+    /// What-if: the status changes <see cref="UpdateBook(string, BookExposures, DateTimeOffset)"/> would produce for these exposures, without
     /// changing any state (for a check before a trade).
     /// </summary>
-    public IReadOnlyList<LimitStatusChange> WhatIf(string bookId, IReadOnlyDictionary<ExposureMeasure, double> exposures, DateTimeOffset asOf)
+    public IReadOnlyList<LimitStatusChange> WhatIf(string bookId, IReadOnlyDictionary<ExposureMeasure, double> exposures, DateTimeOffset asOf) =>
+        WhatIf(bookId, BookExposures.FromTotals(exposures ?? throw new ArgumentNullException(nameof(exposures))), asOf);
+
+    /// <summary>As the overload with totals, with a spread-group breakdown.</summary>
+    public IReadOnlyList<LimitStatusChange> WhatIf(string bookId, BookExposures exposures, DateTimeOffset asOf)
     {
         var scopes = CheckBookUpdate(bookId, exposures);
         var had = _bookExposures.TryGetValue(bookId, out var before);
-        _bookExposures[bookId] = new Dictionary<ExposureMeasure, double>(exposures);
+        _bookExposures[bookId] = exposures.Snapshot();
         try
         {
             return EvaluateScopes(scopes, asOf, commit: false);
@@ -128,7 +139,7 @@ public sealed class LimitSet
     public IReadOnlyList<LimitUse> CurrentUse(DateTimeOffset asOf) =>
         _limits.Values.Where(l => l.IsActiveAt(asOf)).Select(l =>
         {
-            var exposure = ExposureOf(l.Scope, l.Measure);
+            var exposure = ExposureOf(l.Scope, l.Measure, l.SpreadGroup);
             return new LimitUse(l, _statuses[l.Id], exposure, l.BoundFor(exposure), l.Utilisation(exposure));
         }).ToList();
 
@@ -175,21 +186,31 @@ public sealed class LimitSet
         return new LimitReloadResult(added, removed, modified, dropped, hierarchyChanged, changes);
     }
 
-    private IReadOnlyList<LimitScope> CheckBookUpdate(string bookId, IReadOnlyDictionary<ExposureMeasure, double> exposures)
+    private IReadOnlyList<LimitScope> CheckBookUpdate(string bookId, BookExposures exposures)
     {
         ArgumentNullException.ThrowIfNull(bookId);
         ArgumentNullException.ThrowIfNull(exposures);
         var scopes = Hierarchy.ScopesCovering(bookId);
-        foreach (var (measure, value) in exposures)
+        CheckFinite(bookId, null, exposures.Totals);
+        foreach (var (group, figures) in exposures.BySpreadGroup)
         {
-            if (!double.IsFinite(value))
-            {
-                throw new ArgumentOutOfRangeException(nameof(exposures), value,
-                    $"Exposure {measure} of book '{bookId}' must be finite, got {value.ToString(CultureInfo.InvariantCulture)}.");
-            }
+            CheckFinite(bookId, group, figures);
         }
 
         return scopes;
+    }
+
+    private static void CheckFinite(string bookId, string? spreadGroup, IReadOnlyDictionary<ExposureMeasure, double> figures)
+    {
+        foreach (var (measure, value) in figures)
+        {
+            if (!double.IsFinite(value))
+            {
+                var where = spreadGroup is null ? "" : $" in spread group '{spreadGroup}'";
+                throw new ArgumentOutOfRangeException(nameof(figures), value,
+                    $"Exposure {measure} of book '{bookId}'{where} must be finite, got {value.ToString(CultureInfo.InvariantCulture)}.");
+            }
+        }
     }
 
     private List<LimitStatusChange> EvaluateScopes(IReadOnlyList<LimitScope> scopes, DateTimeOffset asOf, bool commit)
@@ -209,7 +230,7 @@ public sealed class LimitSet
                     continue;
                 }
 
-                var change = LimitEvaluator.Evaluate(limit, _statuses[limit.Id], ExposureOf(scope, limit.Measure));
+                var change = LimitEvaluator.Evaluate(limit, _statuses[limit.Id], ExposureOf(scope, limit.Measure, limit.SpreadGroup));
                 if (change is not null)
                 {
                     changes.Add(change);

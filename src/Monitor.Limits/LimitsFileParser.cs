@@ -24,13 +24,14 @@ public static partial class LimitsFileParser
     private static readonly string[] RootProperties = ["schemaVersion", "firm", "defaults", "desks", "limits"];
     private static readonly string[] DefaultsProperties = ["warning", "hysteresis"];
     private static readonly string[] DeskProperties = ["id", "books"];
-    private static readonly string[] LimitProperties = ["id", "scope", "scopeId", "measure", "lower", "upper", "warning", "hysteresis", "expiresAt", "note"];
+    private static readonly string[] LimitProperties = ["id", "scope", "scopeId", "spreadGroup", "measure", "lower", "upper", "warning", "hysteresis", "expiresAt", "note"];
 
     private static readonly Dictionary<string, string> JsonNameOfField = new(StringComparer.Ordinal)
     {
         [nameof(LimitDefinition.Id)] = "id",
         [nameof(LimitDefinition.Scope)] = "scopeId",
         [nameof(LimitDefinition.Measure)] = "measure",
+        [nameof(LimitDefinition.SpreadGroup)] = "spreadGroup",
         [nameof(LimitDefinition.Lower)] = "lower",
         [nameof(LimitDefinition.Upper)] = "upper",
         [nameof(LimitDefinition.WarningFraction)] = "warning",
@@ -243,6 +244,7 @@ public static partial class LimitsFileParser
 
             var scope = ReadScope(limit, path, firm, booksByDesk, books, errors);
             var measure = ReadMeasure(limit, path, errors);
+            var spreadGroup = ReadString(limit, "spreadGroup", path + ".spreadGroup", errors, required: false, example: "\"corp-a\"");
             var lower = ReadNumber(limit, "lower", path + ".lower", errors, "-250000");
             var upper = ReadNumber(limit, "upper", path + ".upper", errors, "250000");
             var warning = ReadNumber(limit, "warning", path + ".warning", errors, "0.8");
@@ -268,6 +270,7 @@ public static partial class LimitsFileParser
                 Id = id,
                 Scope = scope.Value,
                 Measure = measure.Value,
+                SpreadGroup = spreadGroup,
                 Lower = lower,
                 Upper = upper,
                 WarningFraction = warning ?? defaultWarning ?? double.NaN,

@@ -14,7 +14,7 @@ public class LimitsFileParserPropertyTests
     private static readonly string Example = File.ReadAllText(Path.Combine(AppContext.BaseDirectory, "Data", "limits-example.json"));
 
     private static readonly string[] Properties =
-        ["id", "scope", "scopeId", "measure", "lower", "upper", "warning", "hysteresis", "expiresAt", "extra"];
+        ["id", "scope", "scopeId", "spreadGroup", "measure", "lower", "upper", "warning", "hysteresis", "expiresAt", "extra"];
 
     private static readonly string[] Values =
         ["null", "\"\"", "-1", "0", "1", "2", "0.5", "1e308", "-1e308", "true", "[]", "{}", "\"x\"", "\"desk\"", "\"book\"", "\"firm\"", "\"rates\"", "\"dv01\"", "\"2026-12-01T17:00:00Z\"", "\"2026-13-45\""];
@@ -24,7 +24,7 @@ public class LimitsFileParserPropertyTests
     {
         var mutation =
             from edits in Gen.ListOf(
-                from limit in Gen.Choose(0, 7)
+                from limit in Gen.Choose(0, 8)
                 from property in Gen.Elements(Properties)
                 from value in Gen.Elements(Values)
                 from remove in Gen.Elements(false, false, false, true)

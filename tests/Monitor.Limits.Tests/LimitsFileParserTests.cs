@@ -26,7 +26,7 @@ public class LimitsFileParserTests
         var config = LimitsFileParser.Parse(Example());
         Assert.Equal("demo-firm", config.Hierarchy.FirmId);
         Assert.Equal("credit", config.Hierarchy.DeskOf("credit-bbb"));
-        Assert.Equal(7, config.Limits.Count);
+        Assert.Equal(8, config.Limits.Count);
 
         var firm = config.Limits[0];
         Assert.Equal(LimitScope.Firm("demo-firm"), firm.Scope);
@@ -42,15 +42,19 @@ public class LimitsFileParserTests
         Assert.Equal(new DateTimeOffset(2026, 12, 1, 17, 0, 0, TimeSpan.Zero), temp.ExpiresAt);
         Assert.Null(temp.Lower);
 
+        var spread = config.Limits[7];
+        Assert.Equal(("corp-bbb", ExposureMeasure.SpreadSlope, LimitScope.Desk("credit")), (spread.SpreadGroup, spread.Measure, spread.Scope));
+        Assert.Null(firm.SpreadGroup);
+
         var set = config.CreateLimitSet();
-        Assert.Equal(7, set.Limits.Count);
+        Assert.Equal(8, set.Limits.Count);
     }
 
     [Fact]
     public void A_stream_parses_like_a_string()
     {
         using var stream = new MemoryStream(Encoding.UTF8.GetBytes(Example()));
-        Assert.Equal(7, LimitsFileParser.Parse(stream).Limits.Count);
+        Assert.Equal(8, LimitsFileParser.Parse(stream).Limits.Count);
     }
 
     [Theory]
@@ -65,7 +69,8 @@ public class LimitsFileParserTests
     [InlineData("scope", "\"team\"", "limits[3].scope: \"team\" is not a scope; use \"firm\", \"desk\" or \"book\"")]
     [InlineData("scopeId", "\"fx\"", "limits[3].scopeId: \"fx\" is not a desk listed in desks; add it to desks or use one of: rates, credit")]
     [InlineData("expiresAt", "\"2026-12-01T17:00:00\"", "limits[3].expiresAt: \"2026-12-01T17:00:00\" is not an ISO 8601 time with an offset")]
-    [InlineData("uppr", "1", "limits[3].uppr: unknown property (value 1); remove it or use one of: id, scope,")]
+    [InlineData("spreadGroup", "\"\"", "limits[3].spreadGroup: \"\" is not a non-empty string")]
+    [InlineData("uppr", "1", "limits[3].uppr: unknown property (value 1); remove it or use one of: id, scope, scopeId, spreadGroup,")]
     [InlineData("id", "\"firm-dv01\"", "limits[3].id: \"firm-dv01\" is already the id of limits[0]")]
     public void A_bad_value_is_reported_with_path_value_and_fix(string property, string json, string expected)
     {
