@@ -1,0 +1,27 @@
+namespace Monitor.Contracts.V1;
+
+/// <summary>
+/// Outbound: a book's exposures after a trade or a curve change. Wire identity:
+/// <c>Monitor.Contracts.V1.BookExposuresUpdated</c>.
+/// </summary>
+public sealed record BookExposuresUpdated
+{
+    public required string Book { get; init; }
+
+    /// <summary>
+    /// Measure name -&gt; value. Names: "marketValue" (money), "dv01", "baseLevel", "baseSlope",
+    /// "baseCurvature", "spreadLevel", "spreadSlope", "spreadCurvature" (money per bp; value lost for a
+    /// 1 bp rise, positive when long), "convexity" (money per bp squared).
+    /// </summary>
+    public required IReadOnlyDictionary<string, double> Measures { get; init; }
+
+    /// <summary>The curves the figures were computed on.</summary>
+    public required IReadOnlyList<CurveVersion> Curves { get; init; }
+
+    public Guid? CauseMessageId { get; init; }
+
+    /// <summary>Wire identity of the causing message, e.g. "Monitor.Contracts.V1.TradeBooked".</summary>
+    public string? CauseMessageType { get; init; }
+
+    public required DateTimeOffset ComputedAt { get; init; }
+}

@@ -1,0 +1,293 @@
+using System.Globalization;
+
+namespace Monitor.Limits;
+
+/// <summary>
+/// All limit definitions, the book hierarchy, each book's latest exposures and each limit's status.
+/// Aggregates books to desks and the firm and evaluates the limits a book's change can move.
+/// </summary>
+/// <remarks>
+/// All state is held by the instance (no statics), so a service can keep one per partition of books;
+/// desk and firm limits then need every book of their scope in the same instance, or an aggregating
+/// step in front. Not thread-safe: one caller at a time.
+/// Aggregation: desk and firm exposures are sums of book money figures (domain primer, "Factor
+/// durations": book figures are sums of dollar figures), recomputed from the books on demand so that
+/// no running total drifts.
+/// </remarks>
+public sealed class LimitSet
+{
+    private readonly Dictionary<string, LimitDefinition> _limits = new(StringComparer.Ordinal);
+    private readonly Dictionary<LimitScope, List<LimitDefinition>> _limitsByScope = [];
+    private readonly Dictionary<string, LimitStatus> _statuses = new(StringComparer.Ordinal);
+    private readonly Dictionary<string, BookExposures> _bookExposures = new(StringComparer.Ordinal);
+
+    /// <exception cref="LimitConfigurationException">Any invalid definition, duplicate id or unknown scope; lists them all.</exception>
+    public LimitSet(BookHierarchy hierarchy, IEnumerable<LimitDefinition> limits)
+    {
+        ArgumentNullException.ThrowIfNull(hierarchy);
+        ArgumentNullException.ThrowIfNull(limits);
+        var list = limits.ToList();
+        ThrowIfInvalid(hierarchy, list);
+        Hierarchy = hierarchy;
+        Install(list);
+        foreach (var limit in list)
+        {
+            _statuses[limit.Id] = LimitStatus.Within;
+        }
+    }
+
+    public BookHierarchy Hierarchy { get; private set; }
+
+    /// <summary>The definitions in the order they were given.</summary>
+    public IReadOnlyCollection<LimitDefinition> Limits => _limits.Values;
+
+    /// <exception cref="KeyNotFoundException">Unknown limit id.</exception>
+    public LimitStatus StatusOf(string limitId) =>
+        _statuses.TryGetValue(limitId, out var s) ? s : throw new KeyNotFoundException($"Limit '{limitId}' is not defined.");
+
+    /// <summary>The book's last reported total exposures; empty when none were reported yet.</summary>
+    public IReadOnlyDictionary<ExposureMeasure, double> ExposuresOf(string bookId) =>
+        _bookExposures.TryGetValue(bookId, out var e) ? e.Totals : new Dictionary<ExposureMeasure, double>();
+
+    /// <summary>
+    /// The scope's exposure: the sum over its books of the measure, over all positions or, with
+    /// <paramref name="spreadGroup"/>, over the bonds of that spread group (a missing figure counts 0).
+    /// </summary>
+    public double ExposureOf(LimitScope scope, ExposureMeasure measure, string? spreadGroup = null)
+    {
+        var sum = 0.0;
+        foreach (var book in Hierarchy.BooksUnder(scope))
+        {
+            if (_bookExposures.TryGetValue(book, out var figures))
+            {
+                sum += figures.Get(measure, spreadGroup);
+            }
+        }
+
+        return sum;
+    }
+
+    /// <summary>
+    /// Replaces one book's exposures (a measure missing from <paramref name="exposures"/> counts 0) and
+    /// evaluates the limits on that book, its desk and the firm that are active at <paramref name="asOf"/>.
+    /// </summary>
+    /// <returns>The status changes, book scope first, then desk, then firm.</returns>
+    /// <exception cref="KeyNotFoundException">Unknown book.</exception>
+    /// <exception cref="ArgumentOutOfRangeException">A non-finite exposure; the message names book, measure and value. State is left untouched.</exception>
+    public IReadOnlyList<LimitStatusChange> UpdateBook(string bookId, IReadOnlyDictionary<ExposureMeasure, double> exposures, DateTimeOffset asOf) =>
+        UpdateBook(bookId, BookExposures.FromTotals(exposures ?? throw new ArgumentNullException(nameof(exposures))), asOf);
+
+    /// <summary>As the overload with totals, with a spread-group breakdown for limits filtered by spread group.</summary>
+    public IReadOnlyList<LimitStatusChange> UpdateBook(string bookId, BookExposures exposures, DateTimeOffset asOf)
+    {
+        var scopes = CheckBookUpdate(bookId, exposures);
+        _bookExposures[bookId] = exposures.Snapshot();
+        return EvaluateScopes(scopes, asOf, commit: true);
+    }
+
+    /// <summary>
+    /// What-if: the status changes <see cref="UpdateBook(string, BookExposures, DateTimeOffset)"/> would produce for these exposures, without
+    /// changing any state (for a check before a trade).
+    /// </summary>
+    public IReadOnlyList<LimitStatusChange> WhatIf(string bookId, IReadOnlyDictionary<ExposureMeasure, double> exposures, DateTimeOffset asOf) =>
+        WhatIf(bookId, BookExposures.FromTotals(exposures ?? throw new ArgumentNullException(nameof(exposures))), asOf);
+
+    /// <summary>As the overload with totals, with a spread-group breakdown.</summary>
+    public IReadOnlyList<LimitStatusChange> WhatIf(string bookId, BookExposures exposures, DateTimeOffset asOf)
+    {
+        var scopes = CheckBookUpdate(bookId, exposures);
+        var had = _bookExposures.TryGetValue(bookId, out var before);
+        _bookExposures[bookId] = exposures.Snapshot();
+        try
+        {
+            return EvaluateScopes(scopes, asOf, commit: false);
+        }
+        finally
+        {
+            if (had)
+            {
+                _bookExposures[bookId] = before!;
+            }
+            else
+            {
+                _bookExposures.Remove(bookId);
+            }
+        }
+    }
+
+    /// <summary>Removes the temporary limits that expired at or before <paramref name="asOf"/>, returning them with their last status.</summary>
+    public IReadOnlyList<ExpiredLimit> RemoveExpired(DateTimeOffset asOf)
+    {
+        var expired = _limits.Values.Where(l => !l.IsActiveAt(asOf)).ToList();
+        if (expired.Count == 0)
+        {
+            return [];
+        }
+
+        var result = expired.Select(l => new ExpiredLimit(l, _statuses[l.Id])).ToList();
+        var kept = _limits.Values.Where(l => l.IsActiveAt(asOf)).ToList();
+        Install(kept);
+        foreach (var l in expired)
+        {
+            _statuses.Remove(l.Id);
+        }
+
+        return result;
+    }
+
+    /// <summary>Every active limit's standing at <paramref name="asOf"/>, in definition order.</summary>
+    public IReadOnlyList<LimitUse> CurrentUse(DateTimeOffset asOf) =>
+        _limits.Values.Where(l => l.IsActiveAt(asOf)).Select(l =>
+        {
+            var exposure = ExposureOf(l.Scope, l.Measure, l.SpreadGroup);
+            return new LimitUse(l, _statuses[l.Id], exposure, l.BoundFor(exposure), l.Utilisation(exposure));
+        }).ToList();
+
+    /// <summary>
+    /// Replaces the hierarchy and definitions (configuration reload). Unchanged limits keep their status;
+    /// modified limits start from their previous status, added limits from Within; then every active limit
+    /// is re-evaluated against the current exposures, which reports any status the new definitions move.
+    /// Exposures of books the new hierarchy does not list are dropped.
+    /// </summary>
+    /// <exception cref="LimitConfigurationException">The new configuration is invalid; the current one stays in force.</exception>
+    public LimitReloadResult Reload(BookHierarchy hierarchy, IEnumerable<LimitDefinition> limits, DateTimeOffset asOf)
+    {
+        ArgumentNullException.ThrowIfNull(hierarchy);
+        ArgumentNullException.ThrowIfNull(limits);
+        var list = limits.ToList();
+        ThrowIfInvalid(hierarchy, list);
+
+        var newIds = list.Select(l => l.Id).ToHashSet(StringComparer.Ordinal);
+        var added = list.Where(l => !_limits.ContainsKey(l.Id)).ToList();
+        var removed = _limits.Values.Where(l => !newIds.Contains(l.Id)).ToList();
+        var modified = list.Where(l => _limits.TryGetValue(l.Id, out var old) && old != l)
+            .Select(l => new LimitModification(_limits[l.Id], l)).ToList();
+        var dropped = _bookExposures.Keys.Where(b => !hierarchy.ContainsBook(b)).ToList();
+        var hierarchyChanged = !Hierarchy.SameTreeAs(hierarchy);
+
+        Hierarchy = hierarchy;
+        foreach (var book in dropped)
+        {
+            _bookExposures.Remove(book);
+        }
+
+        foreach (var l in removed)
+        {
+            _statuses.Remove(l.Id);
+        }
+
+        foreach (var l in added)
+        {
+            _statuses[l.Id] = LimitStatus.Within;
+        }
+
+        Install(list);
+        var changes = EvaluateScopes(_limitsByScope.Keys.ToList(), asOf, commit: true);
+        return new LimitReloadResult(added, removed, modified, dropped, hierarchyChanged, changes);
+    }
+
+    private IReadOnlyList<LimitScope> CheckBookUpdate(string bookId, BookExposures exposures)
+    {
+        ArgumentNullException.ThrowIfNull(bookId);
+        ArgumentNullException.ThrowIfNull(exposures);
+        var scopes = Hierarchy.ScopesCovering(bookId);
+        CheckFinite(bookId, null, exposures.Totals);
+        foreach (var (group, figures) in exposures.BySpreadGroup)
+        {
+            CheckFinite(bookId, group, figures);
+        }
+
+        return scopes;
+    }
+
+    private static void CheckFinite(string bookId, string? spreadGroup, IReadOnlyDictionary<ExposureMeasure, double> figures)
+    {
+        foreach (var (measure, value) in figures)
+        {
+            if (!double.IsFinite(value))
+            {
+                var where = spreadGroup is null ? "" : $" in spread group '{spreadGroup}'";
+                throw new ArgumentOutOfRangeException(nameof(figures), value,
+                    $"Exposure {measure} of book '{bookId}'{where} must be finite, got {value.ToString(CultureInfo.InvariantCulture)}.");
+            }
+        }
+    }
+
+    private List<LimitStatusChange> EvaluateScopes(IReadOnlyList<LimitScope> scopes, DateTimeOffset asOf, bool commit)
+    {
+        var changes = new List<LimitStatusChange>();
+        foreach (var scope in scopes)
+        {
+            if (!_limitsByScope.TryGetValue(scope, out var limits))
+            {
+                continue;
+            }
+
+            foreach (var limit in limits)
+            {
+                if (!limit.IsActiveAt(asOf))
+                {
+                    continue;
+                }
+
+                var change = LimitEvaluator.Evaluate(limit, _statuses[limit.Id], ExposureOf(scope, limit.Measure, limit.SpreadGroup));
+                if (change is not null)
+                {
+                    changes.Add(change);
+                    if (commit)
+                    {
+                        _statuses[limit.Id] = change.Current;
+                    }
+                }
+            }
+        }
+
+        return changes;
+    }
+
+    private void Install(List<LimitDefinition> limits)
+    {
+        _limits.Clear();
+        _limitsByScope.Clear();
+        foreach (var limit in limits)
+        {
+            _limits[limit.Id] = limit;
+            if (!_limitsByScope.TryGetValue(limit.Scope, out var list))
+            {
+                _limitsByScope[limit.Scope] = list = [];
+            }
+
+            list.Add(limit);
+        }
+    }
+
+    private static void ThrowIfInvalid(BookHierarchy hierarchy, List<LimitDefinition> limits)
+    {
+        var errors = new List<string>();
+        var seen = new HashSet<string>(StringComparer.Ordinal);
+        foreach (var limit in limits)
+        {
+            if (limit is null)
+            {
+                errors.Add("a limit definition is null; remove it");
+                continue;
+            }
+
+            errors.AddRange(limit.Validate().Select(e => e.ToString()));
+            if (limit.Id is not null && !seen.Add(limit.Id))
+            {
+                errors.Add($"limit '{limit.Id}' Id: \"{limit.Id}\" is used twice; give each limit its own id");
+            }
+
+            if (!string.IsNullOrWhiteSpace(limit.Scope.Id) && !hierarchy.Contains(limit.Scope))
+            {
+                errors.Add($"limit '{limit.Id}' Scope: {limit.Scope} is not in the book hierarchy; add the {limit.Scope.Level.ToString().ToLowerInvariant()} to the hierarchy or fix the scope id");
+            }
+        }
+
+        if (errors.Count > 0)
+        {
+            throw new LimitConfigurationException(errors);
+        }
+    }
+}
