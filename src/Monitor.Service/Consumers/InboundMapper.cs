@@ -1,0 +1,114 @@
+using System.Globalization;
+using Monitor.Analytics.Dates;
+using Monitor.Analytics.Instruments;
+using Monitor.Analytics.Market;
+using Monitor.Contracts.V1;
+using Monitor.Service.Engine;
+using Monitor.Service.Messaging;
+
+namespace Monitor.Service.Consumers;
+
+/// <summary>
+/// Turns inbound contract messages into validated domain values. Every failure is a
+/// <see cref="MessageRejectedException"/> naming the message field (camelCase, as on the wire) and its value.
+/// </summary>
+public static class InboundMapper
+{
+    private static readonly Dictionary<string, string> BondFieldToWire = new(StringComparer.Ordinal)
+    {
+        ["Id"] = "instrumentId",
+        ["Issuer"] = "issuer",
+        ["SpreadGroup"] = "spreadGroup",
+        ["Currency"] = "currency",
+        ["CouponRate"] = "couponRate",
+        ["Frequency"] = "frequency",
+        ["DayCount"] = "dayCount",
+        ["IssueDate"] = "issueDate",
+        ["FirstCouponDate"] = "firstCouponDate",
+        ["MaturityDate"] = "maturityDate",
+        ["Face"] = "face",
+        ["SettlementLagDays"] = "settlementLagDays",
+    };
+
+    private static readonly Dictionary<string, string> QuoteFieldToWire = new(StringComparer.Ordinal)
+    {
+        ["instrumentId"] = "instrumentId",
+        ["bid"] = "bidCleanPrice",
+        ["ask"] = "askCleanPrice",
+        ["mid"] = "midCleanPrice",
+        ["yield"] = "yield",
+    };
+
+    public static Bond ToBond(InstrumentDefined m)
+    {
+        ArgumentNullException.ThrowIfNull(m);
+        if (!DayCounters.TryParse(m.DayCount, out var dayCount))
+        {
+            throw new MessageRejectedException("dayCount", m.DayCount, "is not a day count; use ACT/ACT-ICMA, ACT/ACT-ISDA, 30/360, 30E/360, ACT/360 or ACT/365F.");
+        }
+        if (!double.IsFinite(m.CouponRate) || !double.IsFinite(m.Face))
+        {
+            var field = double.IsFinite(m.CouponRate) ? "face" : "couponRate";
+            throw new MessageRejectedException(field, Text(field == "face" ? m.Face : m.CouponRate), "must be a finite number.");
+        }
+        try
+        {
+            return new Bond(m.InstrumentId, m.Issuer, string.IsNullOrWhiteSpace(m.SpreadGroup) ? null : m.SpreadGroup, m.Currency,
+                (decimal)m.CouponRate, m.Frequency, dayCount, m.IssueDate, m.FirstCouponDate, m.MaturityDate, (decimal)m.Face, m.SettlementLagDays);
+        }
+        catch (ArgumentException ex)
+        {
+            var field = ex.ParamName is { } p && BondFieldToWire.TryGetValue(p, out var wire) ? wire : "instrumentId";
+            throw new MessageRejectedException(field, null, ex.Message);
+        }
+        catch (OverflowException ex)
+        {
+            throw new MessageRejectedException("couponRate", Text(m.CouponRate), ex.Message);
+        }
+    }
+
+    public static BondQuote ToQuote(BondQuoted m)
+    {
+        ArgumentNullException.ThrowIfNull(m);
+        try
+        {
+            return new BondQuote(m.InstrumentId, m.QuoteTime, m.BidCleanPrice, m.AskCleanPrice, m.MidCleanPrice, m.Yield, m.Source);
+        }
+        catch (ArgumentException ex)
+        {
+            var field = ex.ParamName is { } p && QuoteFieldToWire.TryGetValue(p, out var wire) ? wire : "midCleanPrice";
+            throw new MessageRejectedException(field, null, ex.Message);
+        }
+    }
+
+    public static TradeInput ToTrade(TradeBooked m)
+    {
+        ArgumentNullException.ThrowIfNull(m);
+        if (string.IsNullOrWhiteSpace(m.TradeId))
+        {
+            throw new MessageRejectedException("tradeId", m.TradeId, "is blank.");
+        }
+        if (m.Version < 1)
+        {
+            throw new MessageRejectedException("version", Text(m.Version), "must be 1 or more.");
+        }
+        var action = m.Action?.Trim().ToLowerInvariant() switch
+        {
+            "new" => TradeAction.New,
+            "amend" => TradeAction.Amend,
+            "cancel" => TradeAction.Cancel,
+            _ => throw new MessageRejectedException("action", m.Action, "is not an action; use new, amend or cancel."),
+        };
+        if (string.IsNullOrWhiteSpace(m.Book))
+        {
+            throw new MessageRejectedException("book", m.Book, "is blank.");
+        }
+        if (string.IsNullOrWhiteSpace(m.InstrumentId))
+        {
+            throw new MessageRejectedException("instrumentId", m.InstrumentId, "is blank.");
+        }
+        return new TradeInput(m.TradeId, m.Version, action, m.Book, m.InstrumentId, m.FaceAmount, m.CleanPrice, m.TradeTime);
+    }
+
+    private static string Text(double value) => value.ToString("G", CultureInfo.InvariantCulture);
+}

@@ -1,0 +1,53 @@
+using System.Net.Mime;
+using MassTransit;
+using Monitor.Service.Consumers;
+using Monitor.Service.Messaging;
+
+namespace Monitor.Service.Hosting;
+
+/// <summary>
+/// The inbound queues, one message type each so that plain JSON (no MassTransit envelope) from producers in
+/// other languages maps to its type unambiguously. Refused messages are not retried: MassTransit moves them
+/// to the queue's error queue (<c>&lt;queue&gt;_error</c>) with the reason in the fault headers.
+/// </summary>
+public static class InboundEndpoints
+{
+    public const string Instruments = "monitor-instruments";
+    public const string Quotes = "monitor-quotes";
+    public const string Trades = "monitor-trades";
+
+    public static void AddConsumers(IBusRegistrationConfigurator bus)
+    {
+        ArgumentNullException.ThrowIfNull(bus);
+        bus.AddConsumer<InstrumentDefinedConsumer>();
+        bus.AddConsumer<BondQuotedConsumer>();
+        bus.AddConsumer<TradeBookedConsumer>();
+    }
+
+    public static void Configure(IBusRegistrationContext context, IBusFactoryConfigurator cfg, TransportOptions transport)
+    {
+        ArgumentNullException.ThrowIfNull(cfg);
+        Endpoint<InstrumentDefinedConsumer>(context, cfg, Instruments, transport);
+        Endpoint<BondQuotedConsumer>(context, cfg, Quotes, transport);
+        Endpoint<TradeBookedConsumer>(context, cfg, Trades, transport);
+    }
+
+    private static void Endpoint<TConsumer>(IBusRegistrationContext context, IBusFactoryConfigurator cfg, string queue, TransportOptions transport)
+        where TConsumer : class, IConsumer
+    {
+        cfg.ReceiveEndpoint(queue, e =>
+        {
+            // Plain JSON is accepted beside MassTransit's envelope; a message without a content type is read as plain JSON.
+            e.UseRawJsonDeserializer(RawSerializerOptions.AnyMessageType, isDefault: false);
+            e.DefaultContentType = new ContentType("application/json");
+            e.ConcurrentMessageLimit = transport.ConcurrentMessageLimit;
+            e.UseMessageRetry(r =>
+            {
+                r.Ignore<MessageRejectedException>();
+                r.Ignore<System.Text.Json.JsonException>();
+                r.Intervals(100, 500, 2000);
+            });
+            e.ConfigureConsumer<TConsumer>(context);
+        });
+    }
+}

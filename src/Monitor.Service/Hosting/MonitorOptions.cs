@@ -1,0 +1,54 @@
+using Monitor.Analytics.Fitting;
+
+namespace Monitor.Service.Hosting;
+
+/// <summary>Configuration section <c>Monitor</c>: the start-of-day files, the valuation date, curve models, gates and timings.</summary>
+public sealed class MonitorOptions
+{
+    public const string SectionName = "Monitor";
+
+    /// <summary>Instruments file (our CSV format, config/examples/README.md). Required.</summary>
+    public string InstrumentsFile { get; set; } = string.Empty;
+
+    /// <summary>Start-of-day positions file; optional (books start flat without it).</summary>
+    public string? PositionsFile { get; set; }
+
+    /// <summary>Limits file (JSON, src/Monitor.Limits/README.md). Required; reloaded when it changes.</summary>
+    public string LimitsFile { get; set; } = string.Empty;
+
+    /// <summary>Optional quotes to fit the opening curves from before the first message.</summary>
+    public string? OpeningQuotesFile { get; set; }
+
+    /// <summary>Valuation (spot) date; default the next business day after today's UTC date.</summary>
+    public DateOnly? ValuationDate { get; set; }
+
+    /// <summary>Model of the government curve: NelsonSiegel (default) or Svensson. Spread curves are always Nelson-Siegel.</summary>
+    public CurveModel BaseCurveModel { get; set; } = CurveModel.NelsonSiegel;
+
+    /// <summary>How long the refit loop waits after the first quote of a burst before fitting. Default 20 ms.</summary>
+    public TimeSpan ConflationWindow { get; set; } = TimeSpan.FromMilliseconds(20);
+
+    /// <summary>Period of book snapshots in the exposure log; 0 turns them off. Default 5 minutes.</summary>
+    public TimeSpan SnapshotInterval { get; set; } = TimeSpan.FromMinutes(5);
+
+    /// <summary>Quotes older than this are left out of fits as stale. Default 4 hours.</summary>
+    public TimeSpan StaleQuoteAfter { get; set; } = TimeSpan.FromHours(4);
+
+    /// <summary>Government curve quality gate: largest RMSE in bp of yield. Default 5.</summary>
+    public double BaseMaxRmseBp { get; set; } = 5;
+
+    /// <summary>Government curve quality gate: largest single residual in bp. Default 25.</summary>
+    public double BaseMaxErrorBp { get; set; } = 25;
+
+    /// <summary>Government curve quality gate: fewest bonds in a fit. Default 6.</summary>
+    public int BaseMinQuotes { get; set; } = 6;
+
+    /// <summary>Spread curve quality gate: largest RMSE in bp. Default 15.</summary>
+    public double SpreadMaxRmseBp { get; set; } = 15;
+
+    /// <summary>Spread curve quality gate: largest single residual in bp. Default 60.</summary>
+    public double SpreadMaxErrorBp { get; set; } = 60;
+
+    /// <summary>Spread curve quality gate: fewest bonds in a fit. Default 4.</summary>
+    public int SpreadMinQuotes { get; set; } = 4;
+}

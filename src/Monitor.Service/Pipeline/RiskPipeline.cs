@@ -1,0 +1,284 @@
+using System.Globalization;
+using System.Threading.Channels;
+using MassTransit;
+using Microsoft.Extensions.Logging;
+using Monitor.Analytics.Instruments;
+using Monitor.Analytics.Market;
+using Monitor.Contracts.V1;
+using Monitor.Service.Audit;
+using Monitor.Service.Engine;
+using Monitor.Service.Telemetry;
+
+namespace Monitor.Service.Pipeline;
+
+/// <summary>
+/// Serialises every change to the <see cref="RiskEngine"/> (one at a time, under an async lock), writes what
+/// changed to the exposure log first, then publishes it. Quotes only mark their curve for a refit and wake
+/// the refit loop (<see cref="CurveRefitWorker"/>): a burst of quotes is conflated into one refit on the
+/// latest snapshot. A failed log write throws, so the message is not acknowledged and comes back.
+/// </summary>
+public sealed partial class RiskPipeline : IDisposable
+{
+    private readonly RiskEngine _engine;
+    private readonly ExposureLogWriter _log;
+    private readonly IBus _bus;
+    private readonly MonitorMetrics _metrics;
+    private readonly TimeProvider _time;
+    private readonly ILogger<RiskPipeline> _logger;
+    private readonly SemaphoreSlim _gate = new(1, 1);
+    private readonly Channel<bool> _refitSignal = Channel.CreateBounded<bool>(new BoundedChannelOptions(1) { FullMode = BoundedChannelFullMode.DropWrite });
+    private readonly Dictionary<string, Cause> _pendingCause = new(StringComparer.Ordinal);
+
+    public RiskPipeline(RiskEngine engine, ExposureLogWriter log, IBus bus, MonitorMetrics metrics, TimeProvider time, ILogger<RiskPipeline> logger)
+    {
+        _engine = engine;
+        _log = log;
+        _bus = bus;
+        _metrics = metrics;
+        _time = time;
+        _logger = logger;
+    }
+
+    /// <summary>Completes a read when quotes wait for a refit.</summary>
+    public ChannelReader<bool> RefitRequests => _refitSignal.Reader;
+
+    /// <summary>Runs <paramref name="read"/> on the engine under the lock (for views and snapshots).</summary>
+    public async Task<T> ReadAsync<T>(Func<RiskEngine, T> read, CancellationToken cancellationToken = default)
+    {
+        await _gate.WaitAsync(cancellationToken).ConfigureAwait(false);
+        try
+        {
+            return read(_engine);
+        }
+        finally
+        {
+            _gate.Release();
+        }
+    }
+
+    public async Task DefineInstrumentAsync(Bond bond, CancellationToken cancellationToken)
+    {
+        await _gate.WaitAsync(cancellationToken).ConfigureAwait(false);
+        try
+        {
+            _engine.DefineInstrument(bond);
+        }
+        finally
+        {
+            _gate.Release();
+        }
+    }
+
+    public async Task AcceptQuoteAsync(BondQuote quote, Cause cause, CancellationToken cancellationToken)
+    {
+        await _gate.WaitAsync(cancellationToken).ConfigureAwait(false);
+        try
+        {
+            var key = _engine.AcceptQuote(quote, _time.GetUtcNow());
+            _pendingCause[key] = cause;
+        }
+        finally
+        {
+            _gate.Release();
+        }
+        _refitSignal.Writer.TryWrite(true);
+    }
+
+    /// <summary>Refits every curve with waiting quotes, revalues the affected books, logs and publishes the outcome.</summary>
+    public async Task RefitAsync(CancellationToken cancellationToken)
+    {
+        await _gate.WaitAsync(cancellationToken).ConfigureAwait(false);
+        try
+        {
+            var now = _time.GetUtcNow();
+            var dirty = _engine.DirtyCurves();
+            if (dirty.Count == 0)
+            {
+                return;
+            }
+            var cause = dirty.Select(k => _pendingCause.GetValueOrDefault(k)).OfType<Cause>().MaxBy(c => c.EventTime)
+                ?? Cause.Internal("refit", now);
+            var started = _time.GetTimestamp();
+            var result = _engine.RefitDirtyCurves(now);
+            _metrics.FitDuration.Record(_time.GetElapsedTime(started).TotalMilliseconds - result.ExposureMilliseconds);
+            foreach (var key in dirty)
+            {
+                _pendingCause.Remove(key);
+            }
+            await CommitAsync(result, cause, now, cancellationToken).ConfigureAwait(false);
+        }
+        finally
+        {
+            _gate.Release();
+        }
+    }
+
+    public async Task<TradeOutcome> ApplyTradeAsync(TradeInput trade, Cause cause, CancellationToken cancellationToken)
+    {
+        await _gate.WaitAsync(cancellationToken).ConfigureAwait(false);
+        try
+        {
+            var now = _time.GetUtcNow();
+            var result = _engine.ApplyTrade(trade, now);
+            if (result.Trade == TradeOutcome.Applied)
+            {
+                _log.Append(ExposureLogKinds.TradeApplied, cause.EventTime, LogCause(cause), new Dictionary<string, object?>
+                {
+                    ["tradeId"] = trade.TradeId,
+                    ["version"] = trade.Version,
+                    ["action"] = trade.Action.ToString().ToLowerInvariant(),
+                    ["book"] = trade.Book,
+                    ["instrumentId"] = trade.InstrumentId,
+                    ["faceAmount"] = trade.FaceAmount,
+                    ["cleanPrice"] = trade.CleanPrice,
+                });
+            }
+            else
+            {
+                LogTradeIgnored(trade.TradeId, trade.Version, result.Trade.ToString()!);
+            }
+            await CommitAsync(result, cause, now, cancellationToken).ConfigureAwait(false);
+            return result.Trade!.Value;
+        }
+        finally
+        {
+            _gate.Release();
+        }
+    }
+
+    /// <summary>Puts a new limits file in force, logs the change and publishes the status changes it causes.</summary>
+    public async Task<Limits.LimitReloadResult> ReloadLimitsAsync(Limits.LimitsConfiguration limits, string source, CancellationToken cancellationToken)
+    {
+        await _gate.WaitAsync(cancellationToken).ConfigureAwait(false);
+        try
+        {
+            var now = _time.GetUtcNow();
+            var reload = _engine.ReloadLimits(limits, now);
+            var cause = Cause.Internal("limits-file", now);
+            _log.Append(ExposureLogKinds.LimitsReloaded, now, LogCause(cause), new Dictionary<string, object?>
+            {
+                ["source"] = source,
+                ["added"] = reload.Added.Select(l => l.Id).ToArray(),
+                ["removed"] = reload.Removed.Select(l => l.Id).ToArray(),
+                ["modified"] = reload.Modified.Select(m => m.After.Id).ToArray(),
+                ["limits"] = limits.Limits.Count,
+            });
+            var result = new EngineResult { CurvesUsed = _engine.CurvesInUse() };
+            result.StatusChanges.AddRange(reload.StatusChanges);
+            await CommitAsync(result, cause, now, cancellationToken).ConfigureAwait(false);
+            return reload;
+        }
+        finally
+        {
+            _gate.Release();
+        }
+    }
+
+    /// <summary>Writes a snapshot of every valued book to the exposure log (periodic and end of day).</summary>
+    public async Task SnapshotAsync(string kind, CancellationToken cancellationToken)
+    {
+        await _gate.WaitAsync(cancellationToken).ConfigureAwait(false);
+        try
+        {
+            var now = _time.GetUtcNow();
+            var curves = _engine.CurvesInUse();
+            foreach (var book in _engine.Books.Values.Where(b => b.Exposures is not null).OrderBy(b => b.Id, StringComparer.Ordinal))
+            {
+                _log.Append(kind, now, new ExposureLogCause(null, "timer"), BookPayload(book.Id, book.Exposures!.Totals, curves));
+            }
+        }
+        finally
+        {
+            _gate.Release();
+        }
+    }
+
+    public void Dispose() => _gate.Dispose();
+
+    private async Task CommitAsync(EngineResult result, Cause cause, DateTimeOffset now, CancellationToken cancellationToken)
+    {
+        var logCause = LogCause(cause);
+        var curves = EventMapper.CurveVersions(_engine);
+        var messages = new List<object>();
+        foreach (var outcome in result.Curves)
+        {
+            var report = outcome.Result.Report;
+            var payload = new Dictionary<string, object?>
+            {
+                ["curve"] = CurveKeyLabel.Of(outcome.CurveKey),
+                ["version"] = outcome.Version,
+                ["model"] = report.Model.ToString(),
+                ["parameters"] = outcome.Result.Parameters,
+                ["rmseBp"] = report.RmseBp,
+                ["maxErrorBp"] = report.MaxAbsErrorBp,
+                ["iterations"] = report.Iterations,
+                ["used"] = report.UsedIds.Count,
+                ["excluded"] = report.Exclusions.Select(e => $"{e.Id}: {e.Reason}").ToArray(),
+            };
+            if (outcome.Accepted)
+            {
+                _log.Append(ExposureLogKinds.CurveFitted, cause.EventTime, logCause, payload);
+                messages.Add(EventMapper.CurveFitted(outcome, CurveKeyLabel.Of(outcome.CurveKey) == CurveKeyLabel.Government ? null : CurveKeyLabel.Government, cause, now));
+            }
+            else
+            {
+                payload["reasons"] = outcome.Verdict.Reasons.ToArray();
+                _log.Append(ExposureLogKinds.CurveRejected, cause.EventTime, logCause, payload);
+                messages.Add(EventMapper.CurveRejected(outcome, cause, now));
+                LogCurveRejected(CurveKeyLabel.Of(outcome.CurveKey), string.Join("; ", outcome.Verdict.Reasons));
+            }
+        }
+        foreach (var change in result.StatusChanges)
+        {
+            var payload = new Dictionary<string, object?>
+            {
+                ["limitId"] = change.LimitId,
+                ["scope"] = change.Scope.ToString(),
+                ["measure"] = Limits.LimitsFileParser.JsonName(change.Measure),
+                ["status"] = EventMapper.StatusName(change.Current),
+                ["previous"] = EventMapper.StatusName(change.Previous),
+                ["exposure"] = change.Exposure,
+                ["limit"] = change.LimitValue,
+                ["utilisation"] = change.Utilisation,
+                ["curves"] = result.CurvesUsed,
+            };
+            _log.Append(ExposureLogKinds.StatusChange, cause.EventTime, logCause, payload);
+            messages.Add(EventMapper.StatusChanged(change, curves, cause, now));
+            _metrics.StatusChanges.Add(1);
+        }
+        foreach (var update in result.Books)
+        {
+            messages.Add(EventMapper.BookUpdated(update, curves, cause, now));
+        }
+        if (result.Books.Count > 0)
+        {
+            _metrics.ExposureDuration.Record(result.ExposureMilliseconds);
+        }
+        _metrics.QueueLag.Record((now - cause.EventTime).TotalMilliseconds);
+        foreach (var message in messages)
+        {
+            await _bus.Publish(message, message.GetType(), cancellationToken).ConfigureAwait(false);
+        }
+    }
+
+    private static Dictionary<string, object?> BookPayload(string book, IReadOnlyDictionary<Limits.ExposureMeasure, double> totals, string curves)
+    {
+        var payload = new Dictionary<string, object?> { ["book"] = book, ["curves"] = curves };
+        foreach (var (measure, value) in totals)
+        {
+            payload[Limits.LimitsFileParser.JsonName(measure)] = value;
+        }
+        return payload;
+    }
+
+    private static ExposureLogCause LogCause(Cause cause) =>
+        new(string.IsNullOrEmpty(cause.MessageId) ? null : cause.MessageId, cause.MessageType);
+
+    [LoggerMessage(Level = LogLevel.Information, Message = "Trade {TradeId} version {Version} ignored: {Outcome}")]
+    private partial void LogTradeIgnored(string tradeId, int version, string outcome);
+
+    [LoggerMessage(Level = LogLevel.Warning, Message = "Curve {Curve} refit rejected, last good curve kept: {Reasons}")]
+    private partial void LogCurveRejected(string curve, string reasons);
+
+    internal static string Invariant(double value) => value.ToString("G", CultureInfo.InvariantCulture);
+}
