@@ -36,7 +36,7 @@ public sealed record CurveFitOptions
     public int TauGridPoints { get; init; } = 10;
 
     /// <summary>Stop when an accepted step lowers the sum of squares by less than this fraction.</summary>
-    public double RelativeCostTolerance { get; init; } = 1e-12;
+    public double RelativeCostTolerance { get; init; } = 1e-10;
 
     /// <summary>Stop when the RMSE falls below this (bp): the fit is exact to rounding.</summary>
     public double ExactFitRmseBp { get; init; } = 1e-7;

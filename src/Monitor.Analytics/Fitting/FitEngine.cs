@@ -12,6 +12,7 @@ namespace Monitor.Analytics.Fitting;
 internal sealed class FitEngine
 {
     private const int GridIterations = 6;
+    private const int ColdStartSeeds = 3;
     private readonly NativeLevenbergMarquardt _native = new();
     private double[] _proxyTimes = [];
     private double[] _proxyRates = [];
@@ -137,11 +138,18 @@ internal sealed class FitEngine
             decayFixed[k] = FactorShape.IsDecay(model, k);
         }
         Span<double> trial = stackalloc double[n];
-        Span<double> best = stackalloc double[n];
-        var bestCost = double.PositiveInfinity;
+        // Keep the best few grid points (by cost) and run the full fit from each: one seed can sit in a
+        // neighbouring basin (seen on the GSW 2002-01-24 row, a short tau1 of 0.43 years).
+        var seeds = new double[ColdStartSeeds * n];
+        var seedCost = new double[ColdStartSeeds];
+        Array.Fill(seedCost, double.PositiveInfinity);
         var secondCount = model == CurveModel.Svensson ? grid.Length : 1;
+        Span<double> rowBest = stackalloc double[n];
+        Span<bool> firstDecayFixed = stackalloc bool[n];
+        firstDecayFixed[n - 2] = model == CurveModel.Svensson;
         for (var g1 = 0; g1 < grid.Length; g1++)
         {
+            var rowCost = double.PositiveInfinity;
             for (var g2 = 0; g2 < secondCount; g2++)
             {
                 if (model == CurveModel.Svensson)
@@ -159,15 +167,52 @@ internal sealed class FitEngine
                 }
                 LinearBetas(model, trial, m, lower, upper);
                 var o = _native.Solve(problem, trial, lower, upper, decayFixed, GridIterations, options.RelativeCostTolerance, exactCost);
-                if (o.Cost < bestCost)
+                if (o.Cost < rowCost)
                 {
-                    bestCost = o.Cost;
-                    trial.CopyTo(best);
+                    rowCost = o.Cost;
+                    trial.CopyTo(rowBest);
                 }
             }
+            if (model == CurveModel.Svensson && double.IsFinite(rowCost))
+            {
+                // Profile over tau1: with tau1 held at the grid value, let tau2 and the betas move (the grid in tau2 is coarse).
+                var profiled = _native.Solve(problem, rowBest, lower, upper, firstDecayFixed, 2 * GridIterations, options.RelativeCostTolerance, exactCost);
+                rowCost = profiled.Cost;
+            }
+            // Seeds are the best point of each first-decay row, so they differ in tau1, where the basins differ.
+            var worst = 0;
+            for (var s = 1; s < ColdStartSeeds; s++)
+            {
+                if (seedCost[s] > seedCost[worst])
+                {
+                    worst = s;
+                }
+            }
+            if (rowCost < seedCost[worst])
+            {
+                seedCost[worst] = rowCost;
+                rowBest.CopyTo(seeds.AsSpan(worst * n, n));
+            }
         }
-        best.CopyTo(p);
-        return Solve(problem, options, p, lower, upper, options.MaxIterations, exactCost);
+        Span<double> candidate = stackalloc double[n];
+        var best = new SolverOutcome(0, false, "no cold-start seed", double.PositiveInfinity);
+        var iterations = 0;
+        for (var s = 0; s < ColdStartSeeds; s++)
+        {
+            if (!double.IsFinite(seedCost[s]))
+            {
+                continue;
+            }
+            seeds.AsSpan(s * n, n).CopyTo(candidate);
+            var o = Solve(problem, options, candidate, lower, upper, options.MaxIterations, exactCost);
+            iterations += o.Iterations;
+            if (o.Cost < best.Cost || !double.IsFinite(best.Cost))
+            {
+                best = o;
+                candidate.CopyTo(p);
+            }
+        }
+        return best with { Iterations = iterations };
     }
 
     /// <summary>Betas by least squares of the rate proxies on the loadings at the given decays (a tiny ridge keeps it solvable).</summary>

@@ -101,7 +101,7 @@ internal sealed class NativeLevenbergMarquardt
                     stepNorm += _h[k] * _h[k];
                     pNorm += p[k] * p[k];
                 }
-                if (Math.Sqrt(stepNorm) <= 1e-15 * (Math.Sqrt(pNorm) + 1e-15))
+                if (Math.Sqrt(stepNorm) <= 1e-12 * (Math.Sqrt(pNorm) + 1e-12))
                 {
                     return new SolverOutcome(iterations, true, "step below tolerance", cost);
                 }
