@@ -5,11 +5,14 @@ namespace Monitor.Analytics.Fitting;
 /// price errors weighted so residuals read as yield errors (bp = 1e4 x decimal). Levenberg-Marquardt with the
 /// analytic Jacobian; cold start by a decay grid, warm start from previous parameters; outliers dropped and
 /// recorded. Guard rails: decays in [MinTau, MaxTau], b0 &gt;= MinLevel &gt; 0, |b_k| &lt;= MaxAbsBeta.
-/// An instance keeps its solver workspace between fits (allocation-light refits): not thread-safe, use one per thread.
+/// An instance keeps its solver workspace and the flattened cash flows between fits: a refit with the same instruments
+/// (same ids, order and Times/Amounts arrays; new prices) only re-reads prices and durations. Do not change a Times or
+/// Amounts array in place after passing it. Not thread-safe: use one instance per thread.
 /// </summary>
 public sealed class BondCurveFitter
 {
     private readonly FitEngine _engine = new();
+    private readonly CashFlowProblemCache _cache = new();
 
     /// <param name="instruments">Quoted instruments with cash flows (curve years, per 100) and dirty prices.</param>
     /// <param name="options">Model, solver, bounds, outlier settings.</param>
@@ -24,8 +27,7 @@ public sealed class BondCurveFitter
         ArgumentNullException.ThrowIfNull(options);
         options.Validate();
         var exclusions = new List<FitExclusion>();
-        var valid = InstrumentValidation.Prepare(instruments, preExcluded, exclusions);
-        var problem = new CashFlowProblem(options.Model, valid, baseDiscount: null);
+        var problem = _cache.Get(options.Model, instruments, preExcluded, null, exclusions);
         return _engine.Run(problem, options, isSpread: false, warmStart, exclusions, [], nameof(instruments));
     }
 }

@@ -61,6 +61,29 @@ internal sealed class CashFlowProblem : ILeastSquaresProblem
 
     public CurveModel Model { get; }
 
+    /// <summary>New quote for a point (cash flows unchanged): the refit hot path.</summary>
+    public void UpdateQuote(int point, double dirtyPrice, double duration)
+    {
+        _price[point] = dirtyPrice;
+        _weight[point] = 1.0 / (dirtyPrice * duration);
+    }
+
+    /// <summary>Recomputes the fixed base discount factors (spread fits, after the base curve moved): one pass over the flows.</summary>
+    public void UpdateBaseDiscount(Func<double, double> baseDiscount)
+    {
+        for (var f = 0; f < _times.Length; f++)
+        {
+            _baseDiscount[f] = baseDiscount(_times[f]);
+        }
+    }
+
+    /// <summary>Puts every point back into the fit.</summary>
+    public void ActivateAll()
+    {
+        Array.Fill(_active, true);
+        RebuildActive();
+    }
+
     public int ParameterCount { get; }
 
     public int PointCount => _ids.Length;

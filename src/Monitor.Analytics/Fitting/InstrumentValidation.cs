@@ -55,14 +55,7 @@ internal static class InstrumentValidation
                 throw new ArgumentException(
                     Inv($"{where}: Times has {ins.Times.Length} entries but Amounts has {ins.Amounts.Length}; they must match."), nameof(instruments));
             }
-            if (!double.IsFinite(ins.DirtyPrice) || ins.DirtyPrice <= 0)
-            {
-                throw new ArgumentException(Inv($"{where}.DirtyPrice must be a positive finite number (per 100 face), got {ins.DirtyPrice}."), nameof(instruments));
-            }
-            if (!double.IsFinite(ins.Duration) || ins.Duration <= 0)
-            {
-                throw new ArgumentException(Inv($"{where}.Duration must be a positive finite number of years, got {ins.Duration}."), nameof(instruments));
-            }
+            CheckQuote(ins, i);
             var times = new List<double>(ins.Times.Length);
             var amounts = new List<double>(ins.Times.Length);
             for (var j = 0; j < ins.Times.Length; j++)
@@ -86,9 +79,26 @@ internal static class InstrumentValidation
                 exclusions.Add(new FitExclusion(ins.Id, FitExclusionReason.Matured, "no cash flow after the valuation date"));
                 continue;
             }
-            valid.Add(new ValidInstrument(ins.Id, [.. times], [.. amounts], ins.DirtyPrice, ins.Duration));
+            valid.Add(times.Count == ins.Times.Length
+                ? new ValidInstrument(ins.Id, ins.Times, ins.Amounts, ins.DirtyPrice, ins.Duration)
+                : new ValidInstrument(ins.Id, [.. times], [.. amounts], ins.DirtyPrice, ins.Duration));
         }
         return valid;
+    }
+
+    /// <summary>Checks the quote fields (price and duration) of instruments[index].</summary>
+    public static void CheckQuote(FitInstrument ins, int index)
+    {
+        if (!double.IsFinite(ins.DirtyPrice) || ins.DirtyPrice <= 0)
+        {
+            throw new ArgumentException(
+                Inv($"instruments[{index}] (Id '{ins.Id}').DirtyPrice must be a positive finite number (per 100 face), got {ins.DirtyPrice}."), "instruments");
+        }
+        if (!double.IsFinite(ins.Duration) || ins.Duration <= 0)
+        {
+            throw new ArgumentException(
+                Inv($"instruments[{index}] (Id '{ins.Id}').Duration must be a positive finite number of years, got {ins.Duration}."), "instruments");
+        }
     }
 
     private static string Inv(FormattableString s) => s.ToString(CultureInfo.InvariantCulture);
