@@ -88,21 +88,24 @@ internal sealed class FitEngine
             iterations += outcome.Iterations;
         }
 
+        var residualsBp = new double[problem.PointCount];
+        ComputeResiduals(problem, p, residualsBp);
         if (options.RejectOutliers)
         {
             for (var round = 1; round <= options.MaxOutlierRounds; round++)
             {
-                if (!DropOutliers(problem, options, p, round, exclusions))
+                if (!DropOutliers(problem, options, residualsBp, round, exclusions))
                 {
                     break;
                 }
                 exactCost = Square(options.ExactFitRmseBp * 1e-4) * problem.ActiveCount;
                 outcome = Solve(problem, options, p, lower, upper, options.MaxIterations, exactCost);
                 iterations += outcome.Iterations;
+                ComputeResiduals(problem, p, residualsBp);
             }
         }
 
-        return new CurveFitResult(FactorShape.ToCurve(model, p), p, BuildReport(problem, options, p, outcome, iterations, warmed, exclusions, notes));
+        return new CurveFitResult(FactorShape.ToCurve(model, p), p, BuildReport(problem, options, residualsBp, outcome, iterations, warmed, exclusions, notes));
     }
 
     private SolverOutcome Solve(ILeastSquaresProblem problem, CurveFitOptions options, Span<double> p, ReadOnlySpan<double> lower, ReadOnlySpan<double> upper, int maxIterations, double exactCost)
@@ -251,7 +254,16 @@ internal sealed class FitEngine
         }
     }
 
-    private static bool DropOutliers(ILeastSquaresProblem problem, CurveFitOptions options, ReadOnlySpan<double> p, int round, List<FitExclusion> exclusions)
+    /// <summary>Residuals of every point (used or not) in bp, one pass.</summary>
+    private static void ComputeResiduals(ILeastSquaresProblem problem, ReadOnlySpan<double> p, double[] residualsBp)
+    {
+        for (var i = 0; i < problem.PointCount; i++)
+        {
+            residualsBp[i] = problem.Residual(p, i) * 1e4;
+        }
+    }
+
+    private static bool DropOutliers(ILeastSquaresProblem problem, CurveFitOptions options, double[] residualsBp, int round, List<FitExclusion> exclusions)
     {
         var allowed = problem.ActiveCount - (problem.ParameterCount + options.OutlierMinSurplus);
         if (allowed <= 0)
@@ -265,7 +277,7 @@ internal sealed class FitEngine
             if (problem.IsActive(i))
             {
                 ids.Add(i);
-                bp.Add(problem.Residual(p, i) * 1e4);
+                bp.Add(residualsBp[i]);
             }
         }
         var median = Median(bp);
@@ -292,7 +304,7 @@ internal sealed class FitEngine
         return candidates.Count > 0;
     }
 
-    private static FitReport BuildReport(ILeastSquaresProblem problem, CurveFitOptions options, ReadOnlySpan<double> p, SolverOutcome outcome, int iterations, bool warmed, List<FitExclusion> exclusions, List<string> notes)
+    private static FitReport BuildReport(ILeastSquaresProblem problem, CurveFitOptions options, double[] residualsBp, SolverOutcome outcome, int iterations, bool warmed, List<FitExclusion> exclusions, List<string> notes)
     {
         var residuals = new List<FitResidual>(problem.PointCount);
         var used = new List<string>(problem.ActiveCount);
@@ -300,7 +312,7 @@ internal sealed class FitEngine
         string? maxId = null;
         for (var i = 0; i < problem.PointCount; i++)
         {
-            var bp = problem.Residual(p, i) * 1e4;
+            var bp = residualsBp[i];
             var active = problem.IsActive(i);
             residuals.Add(new FitResidual(problem.PointId(i), bp, active));
             if (!active)
