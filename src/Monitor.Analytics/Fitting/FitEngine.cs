@@ -257,9 +257,10 @@ internal sealed class FitEngine
     /// <summary>Residuals of every point (used or not) in bp, one pass.</summary>
     private static void ComputeResiduals(ILeastSquaresProblem problem, ReadOnlySpan<double> p, double[] residualsBp)
     {
-        for (var i = 0; i < problem.PointCount; i++)
+        problem.AllResiduals(p, residualsBp);
+        for (var i = 0; i < residualsBp.Length; i++)
         {
-            residualsBp[i] = problem.Residual(p, i) * 1e4;
+            residualsBp[i] *= 1e4;
         }
     }
 

@@ -32,6 +32,9 @@ internal interface ILeastSquaresProblem
     /// <summary>Residual of one point (active or not), decimals of yield.</summary>
     double Residual(ReadOnlySpan<double> p, int point);
 
+    /// <summary>Residuals of all points (active or not) in one pass, decimals of yield.</summary>
+    void AllResiduals(ReadOnlySpan<double> p, Span<double> residuals);
+
     /// <summary>A rough (time, zero or spread rate) per active point for the linear cold start.</summary>
     void RateProxies(Span<double> times, Span<double> rates);
 }

@@ -139,6 +139,14 @@ internal sealed class ParYieldProblem : ILeastSquaresProblem
         return _target[point] - (1.0 - dfT) / annuity;
     }
 
+    public void AllResiduals(ReadOnlySpan<double> p, Span<double> residuals)
+    {
+        for (var i = 0; i < _ids.Length; i++)
+        {
+            residuals[i] = Residual(p, i);
+        }
+    }
+
     /// <summary>The published par yield as a zero-rate proxy: continuous equivalent 2 ln(1 + y/2) at the tenor.</summary>
     public void RateProxies(Span<double> times, Span<double> rates)
     {

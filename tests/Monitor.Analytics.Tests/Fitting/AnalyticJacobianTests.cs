@@ -25,7 +25,9 @@ public class AnalyticJacobianTests
     public void Bond_price_residual_Jacobian_matches_finite_differences(CurveModel model, bool spreadOverBase)
     {
         var pricing = new NelsonSiegelCurve(0.05, -0.01, 0.02, 2.5);
+        // Random maturities plus bonds on a common schedule (shared coupon times, evaluated once per distinct time).
         var bonds = SyntheticBonds.Generate(12, 21, pricing)
+            .Concat([SyntheticBonds.Price("S5", 5.0, 3.0, pricing), SyntheticBonds.Price("S10", 10.0, 4.5, pricing), SyntheticBonds.Price("S7", 7.0, 0.0, pricing)])
             .Select(b => new ValidInstrument(b.Id, b.Times, b.Amounts, b.DirtyPrice, b.Duration)).ToList();
         Func<double, double>? baseDf = spreadOverBase ? new NelsonSiegelCurve(0.03, -0.01, 0.005, 1.0).Discount : null;
         Check(new CashFlowProblem(model, bonds, baseDf), Params(model));
@@ -66,8 +68,14 @@ public class AnalyticJacobianTests
                 Assert.True(Math.Abs(fd - analytic) <= 1e-6 * Math.Max(1e-3, Math.Abs(analytic)),
                     FormattableString.Invariant($"point {i}, parameter {k}: analytic {analytic}, finite difference {fd}"));
             }
-            // The single-point residual agrees with the batch evaluation.
-            Assert.Equal(r[0], problem.Residual(p, 0), 14);
+        }
+        // The single-point and all-points residuals agree with the batch evaluation.
+        var all = new double[problem.PointCount];
+        problem.AllResiduals(p, all);
+        for (var i = 0; i < m; i++)
+        {
+            Assert.Equal(r[i], problem.Residual(p, i), 14);
+            Assert.Equal(r[i], all[i], 14);
         }
     }
 }
