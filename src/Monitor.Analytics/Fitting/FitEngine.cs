@@ -13,6 +13,7 @@ internal sealed class FitEngine
 {
     private const int GridIterations = 6;
     private const int ColdStartSeeds = 3;
+    private const int SeedIterations = 40;
     private readonly NativeLevenbergMarquardt _native = new();
     private double[] _proxyTimes = [];
     private double[] _proxyRates = [];
@@ -207,13 +208,19 @@ internal sealed class FitEngine
                 continue;
             }
             seeds.AsSpan(s * n, n).CopyTo(candidate);
-            var o = Solve(problem, options, candidate, lower, upper, options.MaxIterations, exactCost);
+            var o = Solve(problem, options, candidate, lower, upper, Math.Min(SeedIterations, options.MaxIterations), exactCost);
             iterations += o.Iterations;
             if (o.Cost < best.Cost || !double.IsFinite(best.Cost))
             {
                 best = o;
                 candidate.CopyTo(p);
             }
+        }
+        if (!best.Converged && options.MaxIterations > SeedIterations && double.IsFinite(best.Cost))
+        {
+            // Only the winning seed is followed to the end: slow valleys (poorly identified Svensson humps) cost iterations.
+            best = Solve(problem, options, p, lower, upper, options.MaxIterations - SeedIterations, exactCost);
+            iterations += best.Iterations;
         }
         return best with { Iterations = iterations };
     }
