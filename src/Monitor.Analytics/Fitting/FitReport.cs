@@ -2,7 +2,8 @@ namespace Monitor.Analytics.Fitting;
 
 /// <summary>
 /// Quality of a fit. Errors are in basis points of yield over the instruments used.
-/// <see cref="Iterations"/> counts the Levenberg-Marquardt iterations of the final solves (not the cold-start grid).
+/// <see cref="Iterations"/> counts Levenberg-Marquardt iterations of the full solves (cold-start seeds, warm start, outlier
+/// refits), not of the fixed-decay grid. <see cref="WarmStarted"/> is true when the warm start converged without a cold fallback.
 /// <see cref="Exclusions"/> holds the caller's pre-exclusions followed by the fitter's own (outliers, matured).
 /// </summary>
 public sealed record FitReport(
