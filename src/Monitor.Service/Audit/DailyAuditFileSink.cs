@@ -1,3 +1,4 @@
+using System.Text;
 using Serilog;
 using Serilog.Core;
 using Serilog.Events;
@@ -39,7 +40,7 @@ internal sealed class DailyAuditFileSink(FileLifecycleHooks? hooks) : ILogEventS
                 }
 
                 _logger!.Write(logEvent);
-                _goodLength = new FileInfo(path).Length;
+                _goodLength += Encoding.UTF8.GetByteCount(AuditLineFormatter.ReadString(logEvent, AuditLineFormatter.LineProperty)) + 1;
             }
             catch
             {
@@ -65,13 +66,14 @@ internal sealed class DailyAuditFileSink(FileLifecycleHooks? hooks) : ILogEventS
         {
             // The file of the failed write (maybe yesterday's) first: no torn line may stay behind.
             ExposureLogFileRepair.TruncateTo(_path, _goodLength);
-            _needsRepair = false;
         }
 
+        _needsRepair = false;
         if (!string.Equals(path, _path, StringComparison.Ordinal))
         {
+            var length = LengthOf(path); // may throw: then _path still names the file repaired above
             _path = path;
-            _goodLength = File.Exists(path) ? new FileInfo(path).Length : 0;
+            _goodLength = length;
         }
 
         _needsRepair = true; // until the logger is open
@@ -80,6 +82,18 @@ internal sealed class DailyAuditFileSink(FileLifecycleHooks? hooks) : ILogEventS
             .AuditTo.File(_formatter, path, hooks: hooks)
             .CreateLogger();
         _needsRepair = false;
+    }
+
+    /// <summary>Length of the file's content, following symbolic links (FileInfo.Length gives the link's own length).</summary>
+    private static long LengthOf(string path)
+    {
+        if (!File.Exists(path))
+        {
+            return 0;
+        }
+
+        using var stream = new FileStream(path, FileMode.Open, FileAccess.Read, FileShare.ReadWrite);
+        return stream.Length;
     }
 
     private void CloseQuietly()
