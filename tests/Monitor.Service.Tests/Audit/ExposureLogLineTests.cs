@@ -77,4 +77,23 @@ public class ExposureLogLineTests
         Assert.Null(parsed.Record);
         Assert.Contains("expected [v,seq,kind", parsed.Error, StringComparison.Ordinal);
     }
+
+    [Fact]
+    public void The_example_line_of_the_format_spec_verifies()
+    {
+        // The example in src/Monitor.Service/Audit/README.md; its hash was computed with Python's hashlib.sha256.
+        var line = "{\"v\":1,\"seq\":42,\"kind\":\"status-change\",\"eventTime\":\"2026-12-01T14:02:11.2500000Z\",\"writtenTime\":\"2026-12-01T14:02:11.2610000Z\","
+            + "\"cause\":{\"id\":\"q-7f3c\",\"type\":\"BondQuote\"},\"payload\":{\"book\":\"RATES-1\",\"measure\":\"dv01\",\"exposure\":-41250.5,\"limit\":-40000,\"status\":\"breach\",\"previous\":\"warning\"},"
+            + "\"prevHash\":\"3a1f0c9e5b7d2468ace013579bdf2468ace013579bdf2468ace013579bdf2468\",\"hash\":\"c736d17ce5187c20327f5ca9bcea96b226bb2ecf04e6035068fcdaa7d34c1c16\"}";
+
+        var parsed = ExposureLogLine.Parse(Encoding.UTF8.GetBytes(line));
+
+        Assert.True(parsed.HashMatches, parsed.Error);
+        Assert.Equal(42, parsed.Record!.Seq);
+
+        // Writing the same record gives the same line: our writer produces the spec's canonical form.
+        var rebuilt = ExposureLogLine.Build(
+            42, "status-change", parsed.Record.EventTime, parsed.Record.WrittenTime, parsed.Record.Cause, parsed.Record.Payload, parsed.Record.PrevHash);
+        Assert.Equal(line, rebuilt.Line);
+    }
 }
