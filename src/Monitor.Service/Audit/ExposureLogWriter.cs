@@ -232,6 +232,7 @@ public sealed partial class ExposureLogWriter : IDisposable
             throw new ExposureLogOpenException(_options.Folder, "the folder cannot be listed: " + ex.Message, ex);
         }
 
+        var newerHasContent = false;
         for (var i = files.Count - 1; i >= 0; i--)
         {
             var (day, path) = files[i];
@@ -245,7 +246,7 @@ public sealed partial class ExposureLogWriter : IDisposable
                 throw new ExposureLogOpenException(path, "the file cannot be read: " + ex.Message, ex);
             }
 
-            if (tail.Fragment.Length > 0 && _pendingRepair is null && i == files.Count - 1)
+            if (tail.Fragment.Length > 0 && _pendingRepair is null && !newerHasContent)
             {
                 // A crash mid-write: cut the torn line off and say so in the log (first thing on the first append).
                 _pendingRepair = new PendingRepair(path, tail.CompleteLength, tail.Fragment);
@@ -255,6 +256,7 @@ public sealed partial class ExposureLogWriter : IDisposable
                 throw new ExposureLogOpenException(path, $"the file ends in a torn line of {tail.Fragment.Length} bytes, but newer day files exist.");
             }
 
+            newerHasContent |= tail.FileLength > 0;
             if (tail.LastLine is null)
             {
                 continue; // empty (or only a torn line): the chain ended in an older file

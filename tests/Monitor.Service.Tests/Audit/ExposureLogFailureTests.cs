@@ -1,3 +1,4 @@
+using Microsoft.Extensions.Diagnostics.HealthChecks;
 using Monitor.Service.Audit;
 using Monitor.Service.Tests.Support;
 using static Monitor.Service.Tests.Audit.ExposureLogTestData;
@@ -15,7 +16,7 @@ public class ExposureLogFailureTests
     private static readonly DateOnly Day2 = new(2026, 12, 2);
 
     [Fact]
-    public void A_directory_in_place_of_the_day_file_fails_the_write_without_advancing_and_the_retry_continues_the_chain()
+    public async Task A_directory_in_place_of_the_day_file_fails_the_write_without_advancing_and_the_retry_continues_the_chain()
     {
         using var folder = new TempFolder();
         var clock = Clock();
@@ -34,10 +35,16 @@ public class ExposureLogFailureTests
         Assert.Equal((1L, first.Hash), (writer.LastSeq, writer.LastHash));
         Assert.Throws<ExposureLogWriteException>(() => writer.Append(ExposureLogKinds.Snapshot, clock.GetUtcNow(), Cause(2), Figures(2)));
 
+        var health = new ExposureLogHealthCheck(writer);
+        var unhealthy = await health.CheckHealthAsync(new HealthCheckContext());
+        Assert.Equal(HealthStatus.Unhealthy, unhealthy.Status);
+        Assert.Contains(day2, unhealthy.Description, StringComparison.Ordinal);
+
         Directory.Delete(day2);
         var second = writer.Append(ExposureLogKinds.Snapshot, clock.GetUtcNow(), Cause(2), Figures(2));
 
         Assert.True(writer.IsHealthy);
+        Assert.Equal(HealthStatus.Healthy, (await health.CheckHealthAsync(new HealthCheckContext())).Status);
         Assert.Equal((2L, first.Hash), (second.Seq, second.PrevHash));
         var result = ExposureLogVerifier.VerifyFolder(folder.Path);
         Assert.True(result.Intact, string.Join("; ", result.Problems));

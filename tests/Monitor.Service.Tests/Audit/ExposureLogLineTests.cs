@@ -31,11 +31,12 @@ public class ExposureLogLineTests
     [Fact]
     public void Null_message_id_is_written_as_json_null_and_non_ascii_is_escaped()
     {
-        var payload = JsonSerializer.SerializeToElement(new Dictionary<string, object?> { ["note"] = "d\u00e9j\u00e0" });
+        var payload = JsonSerializer.SerializeToElement(new Dictionary<string, object?> { ["note"] = "d\u00e9j\u00e0 a+b<c" });
         var record = ExposureLogLine.Build(2, "day-end", ExposureLogTestData.Day1Morning, ExposureLogTestData.Day1Morning, new ExposureLogCause(null, "timer"), payload, Zeros);
 
         Assert.Contains("\"cause\":{\"id\":null,\"type\":\"timer\"}", record.Line, StringComparison.Ordinal);
         Assert.All(record.Line, c => Assert.True(c < 128, $"non-ASCII character U+{(int)c:X4} in the line"));
+        Assert.Contains("\"note\":\"d\\u00E9j\\u00E0 a\\u002Bb\\u003Cc\"", record.Line, StringComparison.Ordinal);
     }
 
     [Fact]
