@@ -87,8 +87,9 @@ internal static class ExposureLogLine
                 var computed = ExposureLogHash.Compute(canonical);
                 return new ParsedLine(record, null, string.Equals(computed, record.Hash, StringComparison.Ordinal), computed);
             }
-            catch (FormatException ex)
+            catch (Exception ex) when (ex is FormatException or InvalidOperationException)
             {
+                // InvalidOperationException: a string member holds bytes that are not UTF-8.
                 return Unparsable(ex.Message);
             }
         }

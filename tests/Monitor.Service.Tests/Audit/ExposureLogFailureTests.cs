@@ -130,4 +130,28 @@ public class ExposureLogFailureTests
         var result = ExposureLogVerifier.VerifyFile(path);
         Assert.True(result.Intact, string.Join("; ", result.Problems));
     }
+
+    [Fact]
+    public void A_torn_write_at_the_end_of_a_day_is_cut_off_before_the_next_day_file_is_started()
+    {
+        using var folder = new TempFolder();
+        var clock = Clock();
+        var fail = false;
+        var day1 = ExposureLogFiles.PathOf(folder.Path, Day1);
+        using (var writer = new ExposureLogWriter(Options(folder.Path), clock, s => new FaultyStream(s, () => fail)))
+        {
+            writer.Append(ExposureLogKinds.Snapshot, clock.GetUtcNow(), Cause(1), Figures(1));
+            fail = true;
+            Assert.Throws<ExposureLogWriteException>(() => writer.Append(ExposureLogKinds.DayEnd, clock.GetUtcNow(), Cause(2), Figures(2)));
+            fail = false;
+            clock.Advance(TimeSpan.FromDays(1));
+            var next = writer.Append(ExposureLogKinds.Snapshot, clock.GetUtcNow(), Cause(2), Figures(2));
+            Assert.Equal(2, next.Seq);
+        }
+
+        Assert.Single(Lines(day1));
+        var result = ExposureLogVerifier.VerifyFolder(folder.Path);
+        Assert.True(result.Intact, string.Join("; ", result.Problems));
+        Assert.Equal(2, result.Records);
+    }
 }
