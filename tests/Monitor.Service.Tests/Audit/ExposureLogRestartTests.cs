@@ -94,4 +94,41 @@ public class ExposureLogRestartTests
 
         Assert.Equal(3, writer.LastSeq);
     }
+
+    [Fact]
+    public void A_torn_line_followed_by_only_an_empty_newer_file_is_still_repaired()
+    {
+        using var folder = new TempFolder();
+        var clock = Clock();
+        var path = WriteThree(folder, clock);
+        File.AppendAllText(path, "{\"v\":1,\"se");
+        File.WriteAllBytes(ExposureLogFiles.PathOf(folder.Path, Day1.AddDays(1)), []);
+
+        using (var writer = new ExposureLogWriter(Options(folder.Path), clock))
+        {
+            Assert.Equal(5, writer.Append(ExposureLogKinds.Snapshot, clock.GetUtcNow(), Cause(4), Figures(4)).Seq);
+        }
+
+        var result = ExposureLogVerifier.VerifyFolder(folder.Path);
+        Assert.True(result.Intact, string.Join("; ", result.Problems));
+    }
+
+    [Fact]
+    public void A_torn_line_in_a_day_file_older_than_the_newest_non_empty_one_stops_the_start()
+    {
+        using var folder = new TempFolder();
+        var clock = Clock();
+        var path = WriteThree(folder, clock);
+        clock.Advance(TimeSpan.FromDays(1));
+        using (var writer = new ExposureLogWriter(Options(folder.Path), clock))
+        {
+            writer.Append(ExposureLogKinds.Snapshot, clock.GetUtcNow(), Cause(4), Figures(4));
+        }
+
+        File.AppendAllText(path, "{\"v\":1,\"se");
+        File.WriteAllText(ExposureLogFiles.PathOf(folder.Path, Day1.AddDays(1)), "{\"v\":1,"); // the newer file holds only a torn line
+
+        var ex = Assert.Throws<ExposureLogOpenException>(() => new ExposureLogWriter(Options(folder.Path), clock));
+        Assert.Equal(path, ex.Path);
+    }
 }
