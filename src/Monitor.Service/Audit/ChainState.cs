@@ -19,7 +19,13 @@ internal sealed class ChainState(ChainLink? before)
             return;
         }
 
-        var bytes = File.ReadAllBytes(path);
+        byte[] bytes;
+        using (var stream = new FileStream(path, FileMode.Open, FileAccess.Read, FileShare.ReadWrite))
+        {
+            // ReadWrite sharing: today's file may be open in the writer. A record caught mid-write shows as a torn line.
+            bytes = new byte[stream.Length];
+            stream.ReadExactly(bytes);
+        }
         var start = 0;
         var lineNumber = 0;
         while (start < bytes.Length)

@@ -30,6 +30,12 @@ public static class ExposureLogVerifier
     public static ExposureLogVerification VerifyFolder(string folder, DateOnly? from = null, DateOnly? to = null)
     {
         ArgumentNullException.ThrowIfNull(folder);
+        if (!Directory.Exists(folder))
+        {
+            var problem = new ExposureLogProblem(folder, 0, null, ExposureLogProblemKind.MissingFile, $"the folder '{folder}' does not exist.");
+            return new ExposureLogVerification(false, 0, null, null, null, [], [problem]);
+        }
+
         var all = ExposureLogFiles.List(folder);
         var inRange = all.Where(f => (from is null || f.Day >= from) && (to is null || f.Day <= to)).Select(f => f.Path).ToList();
         var earlier = all.Where(f => from is not null && f.Day < from).ToList();

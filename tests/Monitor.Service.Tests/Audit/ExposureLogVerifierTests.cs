@@ -166,6 +166,30 @@ public class ExposureLogVerifierTests
         Assert.Equal(ExposureLogProblemKind.MissingFile, Assert.Single(result.Problems).Kind);
     }
 
+    [Fact]
+    public void A_missing_folder_is_reported()
+    {
+        using var folder = new TempFolder();
+        var result = ExposureLogVerifier.VerifyFolder(folder.Combine("nowhere"));
+        Assert.False(result.Intact);
+        Assert.Equal(ExposureLogProblemKind.MissingFile, Assert.Single(result.Problems).Kind);
+    }
+
+    [Fact]
+    public void The_day_file_the_writer_has_open_can_be_verified()
+    {
+        using var folder = new TempFolder();
+        var clock = Clock();
+        using var writer = new ExposureLogWriter(Options(folder.Path), clock);
+        writer.Append(ExposureLogKinds.Snapshot, clock.GetUtcNow(), Cause(1), Figures(1));
+        writer.Append(ExposureLogKinds.Snapshot, clock.GetUtcNow(), Cause(2), Figures(2));
+
+        var result = ExposureLogVerifier.VerifyDay(folder.Path, Day1);
+
+        Assert.True(result.Intact, string.Join("; ", result.Problems));
+        Assert.Equal(2, result.Records);
+    }
+
     /// <summary>What a forger would do: recompute the hash of a changed line (SHA-256 of the line without its hash member).</summary>
     private static string Rehash(string line)
     {
