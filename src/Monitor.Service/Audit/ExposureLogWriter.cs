@@ -1,0 +1,294 @@
+using System.Text.Json;
+using System.Text.RegularExpressions;
+using Serilog;
+using Serilog.Core;
+using Serilog.Events;
+
+namespace Monitor.Service.Audit;
+
+/// <summary>
+/// Appends records to the exposure log (format MXL-1, Audit/README.md): one file of JSON lines per
+/// business day, each record hash-chained to the one before, across days and restarts. Thread-safe;
+/// one writer per folder (not enforced across processes). Writes go through a Serilog logger in
+/// audit mode, so a failed write throws <see cref="ExposureLogWriteException"/> and the chain does
+/// not advance: the same append can be retried once the folder is writable again.
+/// </summary>
+public sealed partial class ExposureLogWriter : IDisposable
+{
+    private static readonly JsonSerializerOptions PayloadJson = new() { WriteIndented = false };
+
+    private readonly Lock _gate = new();
+    private readonly ExposureLogOptions _options;
+    private readonly TimeProvider _time;
+    private readonly DailyAuditFileSink _sink;
+    private readonly Logger _logger;
+    private PendingRepair? _pendingRepair;
+    private long _lastSeq;
+    private string _lastHash = ExposureLogHash.Genesis;
+    private DateOnly? _lastDay;
+    private bool _healthy = true;
+    private ExposureLogWriteException? _lastError;
+    private bool _disposed;
+
+    /// <summary>Opens the log in <see cref="ExposureLogOptions.Folder"/> and continues its chain where it stopped.</summary>
+    /// <exception cref="ArgumentException">Invalid options (the message names the key).</exception>
+    /// <exception cref="ExposureLogOpenException">The end of the chain cannot be read or fails its hash.</exception>
+    public ExposureLogWriter(ExposureLogOptions options, TimeProvider timeProvider)
+        : this(options, timeProvider, null)
+    {
+    }
+
+    /// <summary>As the public constructor, plus a test seam: a decorator of each day file's stream (to inject write failures).</summary>
+    internal ExposureLogWriter(ExposureLogOptions options, TimeProvider timeProvider, Func<Stream, Stream>? streamDecorator)
+    {
+        ArgumentNullException.ThrowIfNull(options);
+        ArgumentNullException.ThrowIfNull(timeProvider);
+        var errors = options.Validate();
+        if (errors.Count > 0)
+        {
+            throw new ArgumentException(string.Join(" ", errors), nameof(options));
+        }
+
+        _options = options;
+        _time = timeProvider;
+        ContinueChain();
+        _sink = new DailyAuditFileSink(new ExposureLogFileHooks(options.FlushToDisk, streamDecorator));
+        _logger = new LoggerConfiguration().MinimumLevel.Verbose().AuditTo.Sink(_sink).CreateLogger();
+    }
+
+    /// <summary>False after a failed write, true again after the next successful one.</summary>
+    public bool IsHealthy
+    {
+        get { lock (_gate) { return _healthy; } }
+    }
+
+    /// <summary>The last write failure (kept after recovery for diagnosis), null when none.</summary>
+    public ExposureLogWriteException? LastError
+    {
+        get { lock (_gate) { return _lastError; } }
+    }
+
+    /// <summary>seq of the last record in the log (0 for an empty log).</summary>
+    public long LastSeq
+    {
+        get { lock (_gate) { return _lastSeq; } }
+    }
+
+    /// <summary>hash of the last record in the log (64 zeros for an empty log).</summary>
+    public string LastHash
+    {
+        get { lock (_gate) { return _lastHash; } }
+    }
+
+    /// <summary>Appends a record whose payload is a JSON object.</summary>
+    /// <param name="kind">Record kind, <c>[a-z][a-z0-9-]*</c>, see <see cref="ExposureLogKinds"/>.</param>
+    /// <param name="eventTime">Time of the event, from the causing message.</param>
+    /// <param name="cause">The causing message.</param>
+    /// <param name="payload">The figures, a JSON object (numbers as the caller wrote them).</param>
+    /// <returns>The record as written, with its seq and hash.</returns>
+    /// <exception cref="ArgumentException">Bad kind, cause or payload (nothing written).</exception>
+    /// <exception cref="ExposureLogWriteException">The write failed; the chain did not advance.</exception>
+    public ExposureLogRecord Append(string kind, DateTimeOffset eventTime, ExposureLogCause cause, JsonElement payload)
+    {
+        ArgumentNullException.ThrowIfNull(cause);
+        if (kind is null || !KindPattern().IsMatch(kind))
+        {
+            throw new ArgumentException($"kind '{kind}' must match [a-z][a-z0-9-]* and be at most 64 characters.", nameof(kind));
+        }
+
+        if (string.IsNullOrWhiteSpace(cause.MessageType))
+        {
+            throw new ArgumentException("cause.MessageType is empty: name the message type (or \"timer\").", nameof(cause));
+        }
+
+        if (payload.ValueKind != JsonValueKind.Object)
+        {
+            throw new ArgumentException($"payload is a JSON {payload.ValueKind}: it must be a JSON object.", nameof(payload));
+        }
+
+        lock (_gate)
+        {
+            ObjectDisposedException.ThrowIf(_disposed, this);
+            if (_pendingRepair is { } repair)
+            {
+                WriteRepairRecord(repair);
+                _pendingRepair = null;
+            }
+
+            return Write(kind, eventTime, cause, payload);
+        }
+    }
+
+    /// <summary>Appends a record whose payload is serialised from a dictionary by System.Text.Json.</summary>
+    /// <exception cref="ArgumentException">A value cannot be written as JSON (NaN, infinity, a cycle).</exception>
+    public ExposureLogRecord Append(string kind, DateTimeOffset eventTime, ExposureLogCause cause, IReadOnlyDictionary<string, object?> payload)
+    {
+        ArgumentNullException.ThrowIfNull(payload);
+        JsonElement element;
+        try
+        {
+            element = JsonSerializer.SerializeToElement(payload, PayloadJson);
+        }
+        catch (Exception ex) when (ex is ArgumentException or JsonException or NotSupportedException or InvalidOperationException)
+        {
+            throw new ArgumentException($"payload cannot be written as JSON: {ex.Message}", nameof(payload), ex);
+        }
+
+        return Append(kind, eventTime, cause, element);
+    }
+
+    public void Dispose()
+    {
+        lock (_gate)
+        {
+            if (_disposed)
+            {
+                return;
+            }
+
+            _disposed = true;
+            _logger.Dispose();
+            _sink.Dispose();
+        }
+    }
+
+    [GeneratedRegex("^[a-z][a-z0-9-]{0,63}$", RegexOptions.CultureInvariant)]
+    private static partial Regex KindPattern();
+
+    private ExposureLogRecord Write(string kind, DateTimeOffset eventTime, ExposureLogCause cause, JsonElement payload)
+    {
+        var written = _time.GetUtcNow();
+        var day = ExposureLogFiles.DayOf(written, _options.BusinessDayUtcOffset);
+        if (_lastDay is { } lastDay && day < lastDay)
+        {
+            day = lastDay; // the clock stepped back: never write behind the newest file, or the chain would run backwards
+        }
+
+        var record = ExposureLogLine.Build(_lastSeq + 1, kind, eventTime, written, cause, payload, _lastHash);
+        var path = ExposureLogFiles.PathOf(_options.Folder, day);
+        var logEvent = new LogEvent(
+            written,
+            LogEventLevel.Information,
+            null,
+            MessageTemplate.Empty,
+            [
+                new LogEventProperty(AuditLineFormatter.LineProperty, new ScalarValue(record.Line)),
+                new LogEventProperty(DailyAuditFileSink.FileProperty, new ScalarValue(path)),
+            ]);
+        try
+        {
+            _logger.Write(logEvent);
+        }
+        catch (Exception ex)
+        {
+            var root = Innermost(ex);
+            _lastError = new ExposureLogWriteException(path, $"{root.GetType().Name}: {root.Message}", ex);
+            _healthy = false;
+            throw _lastError;
+        }
+
+        _lastSeq = record.Seq;
+        _lastHash = record.Hash;
+        _lastDay = day;
+        _healthy = true;
+        return record;
+    }
+
+    private void WriteRepairRecord(PendingRepair repair)
+    {
+        try
+        {
+            ExposureLogFileRepair.TruncateTo(repair.Path, repair.GoodLength);
+        }
+        catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
+        {
+            _lastError = new ExposureLogWriteException(repair.Path, "cutting off the torn last line failed: " + ex.Message, ex);
+            _healthy = false;
+            throw _lastError;
+        }
+
+        var payload = JsonSerializer.SerializeToElement(
+            new Dictionary<string, object?>
+            {
+                ["file"] = Path.GetFileName(repair.Path),
+                ["keptBytes"] = repair.GoodLength,
+                ["removedBytes"] = repair.Fragment.Length,
+                ["removedBase64"] = Convert.ToBase64String(repair.Fragment),
+            },
+            PayloadJson);
+        Write(ExposureLogKinds.LogRepaired, _time.GetUtcNow(), new ExposureLogCause(null, "writer-start"), payload);
+    }
+
+    /// <summary>Finds the last record of the log and takes seq, hash and day from it.</summary>
+    private void ContinueChain()
+    {
+        IReadOnlyList<(DateOnly Day, string Path)> files;
+        try
+        {
+            files = ExposureLogFiles.List(_options.Folder);
+        }
+        catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
+        {
+            throw new ExposureLogOpenException(_options.Folder, "the folder cannot be listed: " + ex.Message, ex);
+        }
+
+        var newerHasContent = false;
+        for (var i = files.Count - 1; i >= 0; i--)
+        {
+            var (day, path) = files[i];
+            ExposureLogTail tail;
+            try
+            {
+                tail = ExposureLogTail.Read(path);
+            }
+            catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
+            {
+                throw new ExposureLogOpenException(path, "the file cannot be read: " + ex.Message, ex);
+            }
+
+            if (tail.Fragment.Length > 0 && _pendingRepair is null && !newerHasContent)
+            {
+                // A crash mid-write: cut the torn line off and say so in the log (first thing on the first append).
+                _pendingRepair = new PendingRepair(path, tail.CompleteLength, tail.Fragment);
+            }
+            else if (tail.Fragment.Length > 0)
+            {
+                throw new ExposureLogOpenException(path, $"the file ends in a torn line of {tail.Fragment.Length} bytes, but newer day files exist.");
+            }
+
+            newerHasContent |= tail.FileLength > 0;
+            if (tail.LastLine is null)
+            {
+                continue; // empty (or only a torn line): the chain ended in an older file
+            }
+
+            var parsed = ExposureLogLine.Parse(tail.LastLine);
+            if (parsed.Record is null)
+            {
+                throw new ExposureLogOpenException(path, $"the last complete line (at byte {tail.CompleteLength - tail.LastLine.Length - 1}) is unparsable: {parsed.Error}");
+            }
+
+            if (!parsed.HashMatches)
+            {
+                throw new ExposureLogOpenException(path, $"the last complete line (seq {parsed.Record.Seq}) fails its hash: stored {parsed.Record.Hash}, computed {parsed.ComputedHash}. It was changed after writing; run the verifier.");
+            }
+
+            _lastSeq = parsed.Record.Seq;
+            _lastHash = parsed.Record.Hash;
+            _lastDay = day;
+            return;
+        }
+    }
+
+    private static Exception Innermost(Exception ex)
+    {
+        while (ex is AggregateException { InnerException: { } inner })
+        {
+            ex = inner;
+        }
+
+        return ex;
+    }
+
+    private sealed record PendingRepair(string Path, long GoodLength, byte[] Fragment);
+}
