@@ -29,7 +29,7 @@ public sealed class RiskEngine
     private readonly BondCurveFitter _baseFitter = new();
     private readonly Dictionary<string, SpreadCurveFitter> _spreadFitters = new(StringComparer.Ordinal);
     private readonly TradeRegister _trades = new();
-    private LimitSet _limits;
+    private readonly LimitSet _limits;
 
     public RiskEngine(EngineSettings settings, LimitsConfiguration limits)
     {
@@ -203,7 +203,7 @@ public sealed class RiskEngine
         ArgumentNullException.ThrowIfNull(limits);
         foreach (var book in _books.Values.Where(b => b.Positions.Count > 0 && !limits.Hierarchy.ContainsBook(b.Id)))
         {
-            throw new LimitConfigurationException([new LimitValidationError("books", book.Id, $"book {book.Id} holds positions and cannot be dropped from the hierarchy")]);
+            throw new LimitConfigurationException([$"desks: book '{book.Id}' holds positions and cannot be dropped from the hierarchy; keep it under a desk until its positions are closed."]);
         }
         var reload = _limits.Reload(limits.Hierarchy, limits.Limits, now);
         foreach (var book in limits.Hierarchy.Books.Where(b => !_books.ContainsKey(b)))
