@@ -1,11 +1,23 @@
+using System.CommandLine;
+using Monitor.Cli.Verbs;
+
 namespace Monitor.Cli;
 
-/// <summary>Parses the command line and dispatches to a verb.</summary>
+/// <summary>Parses the command line and dispatches to a verb. Each verb lives in its own file under Verbs/.</summary>
 internal static class EntryPoint
 {
     public static int Run(string[] args)
     {
-        Console.Error.WriteLine("monitor: no verbs yet");
-        return args.Length == 0 ? 1 : 2;
+        var root = new RootCommand("monitor: intraday market-risk surveillance of bond books (a surveillance aid, not a system of record).");
+        foreach (var verb in Verbs())
+        {
+            root.Subcommands.Add(verb);
+        }
+        return root.Parse(args).Invoke();
+    }
+
+    private static IEnumerable<Command> Verbs()
+    {
+        yield return VerifyLogVerb.Create();
     }
 }
