@@ -1,3 +1,4 @@
+using Monitor.Analytics.Fitting;
 using Monitor.Analytics.Market;
 using Monitor.Files.Csv;
 

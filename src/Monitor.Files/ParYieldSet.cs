@@ -1,4 +1,4 @@
-using Monitor.Analytics.Market;
+using Monitor.Analytics.Fitting;
 
 namespace Monitor.Files;
 

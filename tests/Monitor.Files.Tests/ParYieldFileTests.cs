@@ -19,7 +19,7 @@ public class ParYieldFileTests
         Assert.Equal(2, sets.Count);
         Assert.Equal(2, sets[0].Points.Count);
         Assert.Equal(1.0 / 12.0, sets[0].Points[0].TenorYears, 12);
-        Assert.Equal(0.0425, sets[0].Points[1].ParYield, 12);
+        Assert.Equal(0.0425, sets[0].Points[1].ParYield!.Value, 12);
         Assert.Equal(0.5, sets[1].Points[0].TenorYears, 12);
     }
 
