@@ -19,5 +19,6 @@ internal static class EntryPoint
     private static IEnumerable<Command> Verbs()
     {
         yield return VerifyLogVerb.Create();
+        yield return FitVerb.Create();
     }
 }
