@@ -20,5 +20,6 @@ internal static class EntryPoint
     {
         yield return VerifyLogVerb.Create();
         yield return FitVerb.Create();
+        yield return RiskVerb.Create();
     }
 }

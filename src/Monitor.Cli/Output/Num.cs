@@ -18,5 +18,14 @@ internal static class Num
 
     public static string Date(DateOnly d) => d.ToString("yyyy-MM-dd", CultureInfo.InvariantCulture);
 
-    private static string F(double x, string format) => double.IsFinite(x) ? x.ToString(format, CultureInfo.InvariantCulture) : "n/a";
+    // A value that rounds to zero prints without a sign ("-0.00" reads as a short position).
+    private static string F(double x, string format)
+    {
+        if (!double.IsFinite(x))
+        {
+            return "n/a";
+        }
+        var text = x.ToString(format, CultureInfo.InvariantCulture);
+        return text.StartsWith('-') && text.All(c => c is '-' or '0' or '.' or ',') ? text[1..] : text;
+    }
 }
