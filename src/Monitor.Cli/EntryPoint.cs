@@ -21,5 +21,6 @@ internal static class EntryPoint
         yield return VerifyLogVerb.Create();
         yield return FitVerb.Create();
         yield return RiskVerb.Create();
+        yield return ExplainVerb.Create();
     }
 }
