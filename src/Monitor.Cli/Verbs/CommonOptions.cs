@@ -23,7 +23,21 @@ internal static class CommonOptions
             Description = "Base curve model: nelson-siegel (b0, b1, b2, tau) or svensson (b0..b3, tau1, tau2). Spread curves are Nelson-Siegel.",
             DefaultValueFactory = _ => NelsonSiegel,
         };
-        option.AcceptOnlyFromAmong(NelsonSiegel, Svensson);
+        return OneOf(option, NelsonSiegel, Svensson);
+    }
+
+    /// <summary>Restricts an option to a few words, with an error that names the option and the value.</summary>
+    public static Option<string> OneOf(Option<string> option, params string[] words)
+    {
+        option.HelpName = string.Join('|', words);
+        option.Validators.Add(result =>
+        {
+            var value = result.GetValueOrDefault<string>();
+            if (!words.Contains(value, StringComparer.Ordinal))
+            {
+                result.AddError($"{option.Name}: '{value}' is not one of {string.Join(", ", words)}.");
+            }
+        });
         return option;
     }
 

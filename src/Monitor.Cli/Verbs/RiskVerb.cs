@@ -23,7 +23,7 @@ internal static class RiskVerb
         var positions = CommonOptions.File("--positions", "Positions file (book, instrument_id, signed face_amount).", required: true);
         var valuationDate = CommonOptions.Date("--valuation-date", "Valuation date YYYY-MM-DD (default: the spot date, T+1 business day, of the earliest quote's date).");
         var by = new Option<string>("--by") { Description = "position: positions and books; book: books only.", DefaultValueFactory = _ => "position" };
-        by.AcceptOnlyFromAmong("position", "book");
+        CommonOptions.OneOf(by, "position", "book");
         var model = CommonOptions.Model();
         var stale = CommonOptions.StaleAfterHours();
         var json = CommonOptions.Json();
