@@ -53,6 +53,16 @@ internal static class CurveTables
         }
         console.Write(points);
 
+        if (curve.Residuals.All(r => r.Maturity is null))
+        {
+            var parTable = TableConsole.Table("residuals (published - model par, bp)", "tenor", ">published par (%)", ">residual (bp)");
+            foreach (var r in curve.Residuals)
+            {
+                TableConsole.Row(parTable, r.Id, r.YieldPct is { } y ? Num.Fixed(y, 3) : string.Empty, Num.Fixed(r.ResidualBp, 3));
+            }
+            console.Write(parTable);
+            return;
+        }
         var residuals = TableConsole.Table("residuals (market minus model, bp of yield; + = cheap)", "id", "maturity", ">clean", ">yield (%)", ">residual (bp)", "used");
         foreach (var r in curve.Residuals)
         {
