@@ -84,4 +84,18 @@ public class ErrorTests
         Assert.Equal(1, exit);
         Assert.Contains("--spread-group: 'NOPE'", error, StringComparison.Ordinal);
     }
+
+    [Fact]
+    public void Held_spread_group_without_quotes_exits_2_naming_the_group()
+    {
+        using var temp = new TempFolder();
+        var instruments = temp.Write("instruments.csv", File.ReadAllLines(CliRun.Data("instruments.csv"))
+            .Append("NWX-2031-01,Nowhere Works,NEW-GRP,XTS,4.000,2,30/360,2024-01-15,,2031-01-15,100,1"));
+        var positions = temp.Write("positions.csv", File.ReadAllLines(CliRun.Data("positions.csv")).Append("CREDIT-IG,NWX-2031-01,1000000"));
+
+        var (exit, _, error) = CliRun.Invoke("risk", "--instruments", instruments, "--quotes", CliRun.Data("quotes-close.csv"), "--positions", positions);
+
+        Assert.Equal(2, exit);
+        Assert.Contains("spread group 'NEW-GRP'", error, StringComparison.Ordinal);
+    }
 }
