@@ -1,11 +1,9 @@
 using System.Diagnostics;
 using System.Globalization;
 using Monitor.Analytics.Curves;
-using Monitor.Analytics.Dates;
 using Monitor.Analytics.Fitting;
 using Monitor.Analytics.Instruments;
 using Monitor.Analytics.Market;
-using Monitor.Analytics.Pricing;
 using Monitor.Analytics.Risk;
 using Monitor.Limits;
 using Monitor.Service.Messaging;
@@ -268,13 +266,9 @@ public sealed class RiskEngine
         var excluded = new List<FitExclusion>();
         foreach (var q in curve.LatestQuotes.Values.OrderBy(q => q.Bond.MaturityDate).ThenBy(q => q.Bond.Id, StringComparer.Ordinal))
         {
-            if (q.Bond.MaturityDate <= ValuationDate)
+            if (BondFitInputs.Exclusion(q.Bond, q.Quote.QuoteTime, ValuationDate, now, Settings.StaleAfter) is { } exclusion)
             {
-                excluded.Add(new FitExclusion(q.Bond.Id, FitExclusionReason.Matured, $"matured {q.Bond.MaturityDate:yyyy-MM-dd}"));
-            }
-            else if (now - q.Quote.QuoteTime > Settings.StaleAfter)
-            {
-                excluded.Add(new FitExclusion(q.Bond.Id, FitExclusionReason.Stale, $"quoted {Iso(q.Quote.QuoteTime)}, older than {Settings.StaleAfter}"));
+                excluded.Add(exclusion);
             }
             else
             {
@@ -328,52 +322,21 @@ public sealed class RiskEngine
 
     private PricedQuote Price(Bond bond, BondQuote quote)
     {
-        var settlement = SettlementOf(bond);
+        var settlement = BondFitInputs.SettlementDate(bond, ValuationDate);
         if (bond.MaturityDate <= settlement)
         {
             throw new MessageRejectedException("instrumentId", bond.Id, $"matured on {bond.MaturityDate:yyyy-MM-dd}; quotes for it are not used.");
         }
-        double clean;
-        double yield;
+        PricedBondQuote priced;
         try
         {
-            if (quote.CleanMid is { } mid)
-            {
-                clean = mid;
-                yield = BondYield.FromCleanPrice(bond, settlement, clean);
-            }
-            else
-            {
-                yield = quote.Yield!.Value;
-                clean = BondYield.CleanPrice(bond, settlement, yield);
-            }
+            priced = BondFitInputs.Price(bond, quote, settlement);
         }
         catch (ArgumentException ex)
         {
             throw new MessageRejectedException(quote.CleanMid is null ? "yield" : "mid", (quote.CleanMid ?? quote.Yield)?.ToString("G", CultureInfo.InvariantCulture), ex.Message);
         }
-        var measures = BondYield.Measures(bond, settlement, yield);
-        var flows = bond.CashFlowsAfter(settlement);
-        var times = new double[flows.Count];
-        var amounts = new double[flows.Count];
-        for (var i = 0; i < flows.Count; i++)
-        {
-            times[i] = CurveTime.YearsBetween(settlement, flows[i].Date);
-            amounts[i] = flows[i].Amount;
-        }
-        return new PricedQuote(quote, bond, settlement, clean, clean + measures.AccruedInterest, yield, measures.ModifiedDuration, times, amounts);
-    }
-
-    /// <summary>A bond settles its own lag after the trade date that the valuation date is spot for (government lag 1).</summary>
-    private DateOnly SettlementOf(Bond bond)
-    {
-        var calendar = BusinessCalendar.WeekendsOnly;
-        var tradeDate = ValuationDate.AddDays(-1);
-        while (!calendar.IsBusinessDay(tradeDate))
-        {
-            tradeDate = tradeDate.AddDays(-1);
-        }
-        return calendar.SettlementDate(tradeDate, bond.SettlementLagDays);
+        return new PricedQuote(quote, bond, settlement, priced.CleanPrice, priced.DirtyPrice, priced.Yield, priced.ModifiedDuration, priced.Times, priced.Amounts);
     }
 
     private Bond RequireInstrument(string id, string field) =>
