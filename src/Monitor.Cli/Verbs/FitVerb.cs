@@ -111,7 +111,7 @@ internal static class FitVerb
         {
             throw new CliInputException($"par-yield curve of {Num.Date(set.AsOf)} from {path}: {ex.Message}", ex);
         }
-        var published = set.Points.ToDictionary(p => ParYieldCurveFitter.TenorLabel(p.TenorYears), p => p.ParYield, StringComparer.Ordinal);
+        var published = set.Points.Where(p => p.ParYield.HasValue).ToDictionary(p => ParYieldCurveFitter.TenorLabel(p.TenorYears), p => p.ParYield!.Value, StringComparer.Ordinal);
         return new FitDocument(Num.Date(set.AsOf), [CurveViews.OfParYields(result, gate, gate.Evaluate(result.Report), published)]);
     }
 }
