@@ -19,5 +19,7 @@ internal static class EntryPoint
     private static IEnumerable<Command> Verbs()
     {
         yield return VerifyLogVerb.Create();
+        yield return RunVerb.Create();
+        yield return DemoVerb.Create();
     }
 }
