@@ -2,6 +2,8 @@ using MassTransit;
 using Microsoft.Extensions.Configuration;
 using Microsoft.Extensions.DependencyInjection;
 using Microsoft.Extensions.Hosting;
+using Microsoft.Extensions.Options;
+using Monitor.Service.Audit;
 using Monitor.Service.Hosting;
 using Serilog;
 
@@ -39,6 +41,37 @@ internal static class MonitorHost
         });
         builder.Services.AddMonitorService(configuration);
         return builder.Build();
+    }
+
+    /// <summary>
+    /// Reads every options section once, so that their validators run before anything is started. The service
+    /// validates on start too, but the RabbitMQ bus is built (and fails on missing credentials with a bare
+    /// <see cref="InvalidOperationException"/>) before the start-up validation runs.
+    /// </summary>
+    /// <exception cref="AggregateException">One or more sections are invalid: <see cref="OptionsValidationException"/>s whose failures name the key and the fix.</exception>
+    public static void ValidateOptions(IServiceProvider services)
+    {
+        var failures = new List<Exception>();
+        Read<MonitorOptions>(services, failures);
+        Read<TransportOptions>(services, failures);
+        Read<ExposureLogOptions>(services, failures);
+        if (failures.Count > 0)
+        {
+            throw new AggregateException(failures);
+        }
+    }
+
+    private static void Read<T>(IServiceProvider services, List<Exception> failures)
+        where T : class
+    {
+        try
+        {
+            _ = services.GetRequiredService<IOptions<T>>().Value;
+        }
+        catch (OptionsValidationException ex)
+        {
+            failures.Add(ex);
+        }
     }
 
     /// <summary>

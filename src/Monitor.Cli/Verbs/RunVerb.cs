@@ -23,15 +23,16 @@ internal static class RunVerb
         };
         var command = new Command("run", "Run the monitor service on the transport the configuration names (InMemory or RabbitMq) until stopped.");
         command.Options.Add(config);
-        command.SetAction((parse, cancellationToken) => RunAsync(parse.GetValue(config)!, cancellationToken));
+        command.SetAction((parse, cancellationToken) => RunAsync(parse.GetValue(config)!, Console.Error, cancellationToken));
         return command;
     }
 
-    private static async Task<int> RunAsync(FileInfo configFile, CancellationToken cancellationToken)
+    /// <summary>Runs the service from <paramref name="configFile"/> until <paramref name="cancellationToken"/> fires or the host is told to stop; configuration problems go to <paramref name="error"/>.</summary>
+    public static async Task<int> RunAsync(FileInfo configFile, TextWriter error, CancellationToken cancellationToken)
     {
         if (!configFile.Exists)
         {
-            await Console.Error.WriteLineAsync($"--config: '{configFile.FullName}' does not exist; give the path of the service configuration, e.g. config/service.json.").ConfigureAwait(false);
+            await error.WriteLineAsync($"--config: '{configFile.FullName}' does not exist; give the path of the service configuration, e.g. config/service.json.").ConfigureAwait(false);
             return ConfigurationRefused;
         }
         IHost host;
@@ -41,27 +42,29 @@ internal static class RunVerb
         }
         catch (InvalidDataException ex)
         {
-            await Console.Error.WriteLineAsync($"--config: '{configFile.FullName}' is not valid JSON: {ex.Message}").ConfigureAwait(false);
+            await error.WriteLineAsync($"--config: '{configFile.FullName}' is not valid JSON: {ex.Message}").ConfigureAwait(false);
             return ConfigurationRefused;
         }
         using (host)
         {
+            var configuration = host.Services.GetRequiredService<IConfiguration>();
             try
             {
+                MonitorHost.ValidateOptions(host.Services);
                 await host.RunAsync(cancellationToken).ConfigureAwait(false);
                 return 0;
             }
             catch (Exception ex)
             {
-                var problems = StartupFailure.ConfigurationProblems(ex, host.Services.GetService<IConfiguration>());
+                var problems = StartupFailure.ConfigurationProblems(ex, configuration);
                 if (problems.Count == 0)
                 {
                     throw;
                 }
-                await Console.Error.WriteLineAsync($"monitor run: the configuration in {configFile.FullName} was refused:").ConfigureAwait(false);
+                await error.WriteLineAsync($"monitor run: the configuration in {configFile.FullName} was refused:").ConfigureAwait(false);
                 foreach (var problem in problems)
                 {
-                    await Console.Error.WriteLineAsync($"  {problem}").ConfigureAwait(false);
+                    await error.WriteLineAsync($"  {problem}").ConfigureAwait(false);
                 }
                 return ConfigurationRefused;
             }
