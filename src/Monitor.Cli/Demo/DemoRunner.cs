@@ -44,6 +44,9 @@ internal static class DemoRunner
             ["Monitor:LimitsFile"] = Path.Combine(configDir, "limits.json"),
             ["Monitor:ValuationDate"] = DemoScenario.ValuationDate.ToString("yyyy-MM-dd", CultureInfo.InvariantCulture),
             ["Monitor:ConflationWindow"] = "00:00:00.020",
+            // At high speed a real-time hiccup (a slow disk flush under the pipeline's lock) spans simulated hours and
+            // would leave every quote "stale" after the default 4 hours; the compressed day keeps quotes for the day.
+            ["Monitor:StaleQuoteAfter"] = "1.00:00:00",
             // Timers run in real time: one snapshot per simulated hour.
             ["Monitor:SnapshotInterval"] = TimeSpan.FromSeconds(3600 / clock.Rate).ToString("c", CultureInfo.InvariantCulture),
             ["Transport:Kind"] = "InMemory",

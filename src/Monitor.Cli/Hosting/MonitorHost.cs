@@ -38,7 +38,7 @@ internal static class MonitorHost
                     .MinimumLevel.Override("MassTransit", Serilog.Events.LogEventLevel.Warning)
                     .WriteTo.Console(formatProvider: System.Globalization.CultureInfo.InvariantCulture);
             }
-        });
+        }, preserveStaticLogger: true);
         builder.Services.AddMonitorService(configuration);
         return builder.Build();
     }
@@ -87,7 +87,10 @@ internal static class MonitorHost
     {
         var builder = Host.CreateApplicationBuilder(new HostApplicationBuilderSettings { DisableDefaults = true });
         builder.Configuration.AddInMemoryCollection(settings);
-        builder.Services.AddSerilog(configureLogging);
+        // A logger of this host's own (not the static Log.Logger): several hosts may share a process (tests).
+        var logger = new LoggerConfiguration();
+        configureLogging(logger);
+        builder.Services.AddSerilog(logger.CreateLogger(), dispose: true);
         configureServices(builder.Services);
         builder.Services.AddMonitorService(builder.Configuration, extraConsumers);
         return builder.Build();
