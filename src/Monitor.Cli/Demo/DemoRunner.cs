@@ -14,7 +14,7 @@ using Spectre.Console;
 namespace Monitor.Cli.Demo;
 
 /// <summary>
-/// Runs the demo: copies config/demo into the working folder, starts the service in-process on the in-memory
+/// Runs the demo: copies config/demo into the working folder, writes the 08:00 quotes as the opening quotes file, starts the service in-process on the in-memory
 /// transport with the <see cref="SimulatedClock"/>, plays the <see cref="DemoScenario"/> through the bus, shows it
 /// (<see cref="LiveView"/> or <see cref="PlainView"/>), stops the service (day-end snapshot), verifies the exposure log
 /// and prints the <see cref="DemoSummary"/>.
@@ -42,6 +42,7 @@ internal static class DemoRunner
             ["Monitor:InstrumentsFile"] = Path.Combine(configDir, "instruments.csv"),
             ["Monitor:PositionsFile"] = Path.Combine(configDir, "positions.csv"),
             ["Monitor:LimitsFile"] = Path.Combine(configDir, "limits.json"),
+            ["Monitor:OpeningQuotesFile"] = Path.Combine(configDir, "opening-quotes.csv"),
             ["Monitor:ValuationDate"] = DemoScenario.ValuationDate.ToString("yyyy-MM-dd", CultureInfo.InvariantCulture),
             ["Monitor:ConflationWindow"] = "00:00:00.020",
             // At high speed a real-time hiccup (a slow disk flush under the pipeline's lock) spans simulated hours and
@@ -65,6 +66,10 @@ internal static class DemoRunner
             }
         }
 
+        var bonds = InstrumentFile.Read(settings["Monitor:InstrumentsFile"]!);
+        var quotes = new QuoteFactory(bonds, new MarketPath(options.Seed, DemoScenario.BurstCount), new Random(options.Seed + 1));
+        OpeningQuotes.Write(settings["Monitor:OpeningQuotesFile"]!, quotes);
+
         var started = Stopwatch.StartNew();
         using var host = MonitorHost.InProcess(
             settings,
@@ -81,8 +86,6 @@ internal static class DemoRunner
             });
         await host.StartAsync(cancellationToken).ConfigureAwait(false);
         var pipeline = host.Services.GetRequiredService<RiskPipeline>();
-        var bonds = InstrumentFile.Read(settings["Monitor:InstrumentsFile"]!);
-        var quotes = new QuoteFactory(bonds, new MarketPath(options.Seed, DemoScenario.BurstCount), new Random(options.Seed + 1));
         var driver = new ScenarioDriver(host.Services.GetRequiredService<IBus>(), clock, quotes, recorder);
 
         var interrupted = false;

@@ -13,7 +13,7 @@ internal static class DemoSummary
         output.WriteLine();
         output.WriteLine(outcome.Interrupted ? "=== Demo interrupted: summary so far ===" : "=== Demo summary ===");
         output.WriteLine(string.Create(inv, $"Simulated {DemoScenario.TradeDate:yyyy-MM-dd} {DemoFormat.Clock(DemoScenario.DayStart)}-{DemoFormat.Clock(outcome.Final.SimulatedTime < DemoScenario.DayEnd ? outcome.Final.SimulatedTime : DemoScenario.DayEnd)} UTC in {outcome.RealElapsed.TotalSeconds:F1} s real time."));
-        output.WriteLine(string.Create(inv, $"Quotes sent {outcome.Quotes}, trades sent {outcome.Trades}, curves fitted {outcome.Fits} (quotes left out as outliers {outcome.Outliers}), refits refused {outcome.Rejections}."));
+        output.WriteLine(string.Create(inv, $"Quotes sent through the bus {outcome.Quotes} (after the opening quotes file), trades sent {outcome.Trades}, curves fitted {outcome.Fits} (quotes left out as outliers {outcome.Outliers}), refits refused {outcome.Rejections}."));
         output.WriteLine(string.Create(inv, $"Limit status changes: {outcome.Changes.Count} (warnings {outcome.Count(StatusChangeKind.Warning)}, breaches {outcome.Count(StatusChangeKind.Breach)}, clears {outcome.Count(StatusChangeKind.Clear)})"));
         foreach (var change in outcome.Changes)
         {

@@ -29,15 +29,16 @@ internal sealed class LiveView(IAnsiConsole console)
 
     private static IRenderable Render(DemoSnapshot snapshot, DemoRecorder recorder)
     {
-        var elapsed = snapshot.SimulatedTime - DemoScenario.DayStart;
-        var header = new Markup(
-            $"[bold]Aldermoor Capital[/] (invented)  simulated day {DemoScenario.TradeDate:yyyy-MM-dd}  [bold]{DemoFormat.Clock(snapshot.SimulatedTime)} UTC[/]  " +
-            $"(elapsed {DemoFormat.Duration(elapsed)})   quotes {recorder.QuotesSent}  fits {recorder.Fits}  refused {recorder.Rejections().Count}  trades {recorder.TradesSent}");
+        var now = snapshot.SimulatedTime < DemoScenario.DayEnd ? snapshot.SimulatedTime : DemoScenario.DayEnd;
+        var header = new Rows(
+            new Markup($"[bold]Aldermoor Capital[/] (invented), simulated {DemoScenario.TradeDate:yyyy-MM-dd} [bold]{DemoFormat.Clock(now)} UTC[/], {DemoFormat.Duration(now - DemoScenario.DayStart)} into the day"),
+            new Markup($"quotes {recorder.QuotesSent}  curves fitted {recorder.Fits}  refits refused {recorder.Rejections().Count}  trades {recorder.TradesSent}"));
 
         var books = new Table().Border(TableBorder.Rounded).Title("Books (XTS; per-bp figures in XTS per bp)");
-        foreach (var column in new[] { "Book", "Value", "DV01", "Level", "Slope", "Curvature", "Spread level", "Limit use" })
+        books.AddColumn(new TableColumn("Book").NoWrap());
+        foreach (var column in new[] { "Value", "DV01", "Level", "Slope", "Curv.", "Spread", "Use" })
         {
-            books.AddColumn(new TableColumn(column).RightAligned());
+            books.AddColumn(new TableColumn(column).RightAligned().NoWrap());
         }
         foreach (var b in snapshot.Books)
         {
@@ -48,15 +49,18 @@ internal sealed class LiveView(IAnsiConsole console)
         }
 
         var limits = new Table().Border(TableBorder.Simple).Title("Limits");
-        foreach (var column in new[] { "Limit", "Scope", "Measure", "Exposure", "Bound", "Use", "Status" })
+        limits.AddColumn(new TableColumn("Limit").NoWrap());
+        limits.AddColumn(new TableColumn("Measure"));
+        foreach (var column in new[] { "Exposure", "Bound", "Use" })
         {
-            limits.AddColumn(column);
+            limits.AddColumn(new TableColumn(column).RightAligned().NoWrap());
         }
         foreach (var l in snapshot.Limits)
         {
+            var money = l.Measure == "marketValue" ? (Func<double, string>)DemoFormat.Millions : DemoFormat.Money;
             limits.AddRow(
-                new Text(l.Id), new Text(l.Scope), new Text(l.Measure), new Text(DemoFormat.Money(l.Exposure)),
-                new Text(l.Bound is { } bound ? DemoFormat.Money(bound) : "-"), new Markup(UseMarkup(l.Use, l.Status)), new Text(l.Status));
+                new Text(l.Id), new Text(l.Measure), new Text(money(l.Exposure)),
+                new Text(l.Bound is { } bound ? money(bound) : "-"), new Markup(UseMarkup(l.Use, l.Status) + " " + l.Status));
         }
 
         var curves = new Markup("Curves: " + string.Join("   ", snapshot.Curves.Select(c =>

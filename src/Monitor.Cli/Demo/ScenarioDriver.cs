@@ -16,7 +16,8 @@ internal sealed class ScenarioDriver(IBus bus, SimulatedClock clock, QuoteFactor
         var tradeEndpoint = await bus.GetSendEndpoint(new Uri($"queue:{InboundEndpoints.Trades}")).ConfigureAwait(false);
         var trades = new Queue<ScenarioTrade>(DemoScenario.Trades);
         clock.Run();
-        for (var step = 0; step < DemoScenario.BurstCount; step++)
+        // Step 0 (08:00) is the opening quotes file the service fitted at start-up (OpeningQuotes).
+        for (var step = 1; step < DemoScenario.BurstCount; step++)
         {
             var burstAt = DemoScenario.At(DemoScenario.Open + step * DemoScenario.BurstEvery);
             while (trades.TryPeek(out var trade) && DemoScenario.At(trade.At) < burstAt)
