@@ -19,6 +19,8 @@ internal static class EntryPoint
     private static IEnumerable<Command> Verbs()
     {
         yield return VerifyLogVerb.Create();
+        yield return RunVerb.Create();
+        yield return DemoVerb.Create();
         yield return FitVerb.Create();
         yield return RiskVerb.Create();
         yield return ExplainVerb.Create();

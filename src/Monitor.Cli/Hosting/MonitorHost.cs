@@ -1,0 +1,98 @@
+using MassTransit;
+using Microsoft.Extensions.Configuration;
+using Microsoft.Extensions.DependencyInjection;
+using Microsoft.Extensions.Hosting;
+using Microsoft.Extensions.Options;
+using Monitor.Service.Audit;
+using Monitor.Service.Hosting;
+using Serilog;
+
+namespace Monitor.Cli.Hosting;
+
+/// <summary>
+/// Builds the service as a Generic Host: configuration given by the caller, Serilog as the only logger,
+/// and <see cref="ServiceRegistration.AddMonitorService"/> for the rest. Used by <c>monitor run</c> and <c>monitor demo</c>.
+/// </summary>
+internal static class MonitorHost
+{
+    /// <summary>
+    /// The host of <c>monitor run</c>: <paramref name="configFile"/> (JSON) overlaid by environment variables
+    /// (<c>Transport__Kind=RabbitMq</c> sets <c>Transport:Kind</c>). Logging follows the file's <c>Serilog</c>
+    /// section; without one, information and above go to the console.
+    /// </summary>
+    public static IHost ForService(string configFile)
+    {
+        var builder = Host.CreateApplicationBuilder(new HostApplicationBuilderSettings { DisableDefaults = true });
+        builder.Configuration.AddJsonFile(Path.GetFullPath(configFile), optional: false, reloadOnChange: false);
+        builder.Configuration.AddEnvironmentVariables();
+        var configuration = builder.Configuration;
+        builder.Services.AddSerilog((services, logger) =>
+        {
+            if (configuration.GetSection("Serilog").Exists())
+            {
+                logger.ReadFrom.Configuration(configuration).ReadFrom.Services(services);
+            }
+            else
+            {
+                logger.MinimumLevel.Information()
+                    .MinimumLevel.Override("MassTransit", Serilog.Events.LogEventLevel.Warning)
+                    .WriteTo.Console(formatProvider: System.Globalization.CultureInfo.InvariantCulture);
+            }
+        }, preserveStaticLogger: true);
+        builder.Services.AddMonitorService(configuration);
+        return builder.Build();
+    }
+
+    /// <summary>
+    /// Reads every options section once, so that their validators run before anything is started. The service
+    /// validates on start too, but the RabbitMQ bus is built (and fails on missing credentials with a bare
+    /// <see cref="InvalidOperationException"/>) before the start-up validation runs.
+    /// </summary>
+    /// <exception cref="AggregateException">One or more sections are invalid: <see cref="OptionsValidationException"/>s whose failures name the key and the fix.</exception>
+    public static void ValidateOptions(IServiceProvider services)
+    {
+        var failures = new List<Exception>();
+        Read<MonitorOptions>(services, failures);
+        Read<TransportOptions>(services, failures);
+        Read<ExposureLogOptions>(services, failures);
+        if (failures.Count > 0)
+        {
+            throw new AggregateException(failures);
+        }
+    }
+
+    private static void Read<T>(IServiceProvider services, List<Exception> failures)
+        where T : class
+    {
+        try
+        {
+            _ = services.GetRequiredService<IOptions<T>>().Value;
+        }
+        catch (OptionsValidationException ex)
+        {
+            failures.Add(ex);
+        }
+    }
+
+    /// <summary>
+    /// A host with configuration from memory (the demo): <paramref name="settings"/> are flat keys such as
+    /// <c>Monitor:LimitsFile</c>; <paramref name="configureLogging"/> sets up Serilog; <paramref name="configureServices"/>
+    /// runs before the service is added (a <see cref="TimeProvider"/> registered there replaces the system clock).
+    /// </summary>
+    public static IHost InProcess(
+        IReadOnlyDictionary<string, string?> settings,
+        Action<LoggerConfiguration> configureLogging,
+        Action<IServiceCollection> configureServices,
+        Action<IBusRegistrationConfigurator> extraConsumers)
+    {
+        var builder = Host.CreateApplicationBuilder(new HostApplicationBuilderSettings { DisableDefaults = true });
+        builder.Configuration.AddInMemoryCollection(settings);
+        // A logger of this host's own (not the static Log.Logger): several hosts may share a process (tests).
+        var logger = new LoggerConfiguration();
+        configureLogging(logger);
+        builder.Services.AddSerilog(logger.CreateLogger(), dispose: true);
+        configureServices(builder.Services);
+        builder.Services.AddMonitorService(builder.Configuration, extraConsumers);
+        return builder.Build();
+    }
+}

@@ -1,0 +1,52 @@
+using Microsoft.Extensions.Configuration;
+using Microsoft.Extensions.Options;
+using Monitor.Service.Audit;
+
+namespace Monitor.Cli.Hosting;
+
+/// <summary>
+/// Turns a start-up failure caused by bad configuration into plain lines for stderr (each naming the key and the fix).
+/// Options are validated on start (<c>ValidateOnStart</c>), so these arrive as <see cref="OptionsValidationException"/>,
+/// sometimes wrapped in an <see cref="AggregateException"/> when several hosted services fail.
+/// </summary>
+internal static class StartupFailure
+{
+    /// <summary>The validation messages inside <paramref name="exception"/>, or none when it is not a configuration problem.</summary>
+    public static IReadOnlyList<string> ConfigurationProblems(Exception exception, IConfiguration? configuration)
+    {
+        var found = new List<string>();
+        Collect(exception, found, configuration);
+        return found.Distinct(StringComparer.Ordinal).ToArray();
+    }
+
+    private static void Collect(Exception exception, List<string> found, IConfiguration? configuration)
+    {
+        switch (exception)
+        {
+            case OptionsValidationException validation:
+                if (validation.OptionsType == typeof(ExposureLogOptions) && configuration is not null)
+                {
+                    // The service's ExposureLog check only says "see the messages logged"; give the messages themselves.
+                    var options = configuration.GetSection(ExposureLogOptions.SectionName).Get<ExposureLogOptions>() ?? new ExposureLogOptions();
+                    found.AddRange(options.Validate());
+                }
+                else
+                {
+                    found.AddRange(validation.Failures);
+                }
+                break;
+            case AggregateException aggregate:
+                foreach (var inner in aggregate.InnerExceptions)
+                {
+                    Collect(inner, found, configuration);
+                }
+                break;
+            default:
+                if (exception.InnerException is { } innerException)
+                {
+                    Collect(innerException, found, configuration);
+                }
+                break;
+        }
+    }
+}
