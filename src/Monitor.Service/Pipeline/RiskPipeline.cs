@@ -113,6 +113,24 @@ public sealed partial class RiskPipeline : IDisposable
         }
     }
 
+    /// <summary>Fits the government curve from par yields (through the quality gate), revalues the books, logs and publishes.</summary>
+    public async Task ApplyParYieldsAsync(string curveId, DateTimeOffset asOf, IReadOnlyList<(string Tenor, double ParYield)> points, Cause cause, CancellationToken cancellationToken)
+    {
+        await _gate.WaitAsync(cancellationToken).ConfigureAwait(false);
+        try
+        {
+            var now = _time.GetUtcNow();
+            var started = _time.GetTimestamp();
+            var result = _engine.ApplyParYields(curveId, asOf, points, now);
+            _metrics.FitDuration.Record(_time.GetElapsedTime(started).TotalMilliseconds - result.ExposureMilliseconds);
+            await CommitAsync(result, cause, now, cancellationToken).ConfigureAwait(false);
+        }
+        finally
+        {
+            _gate.Release();
+        }
+    }
+
     public async Task<TradeOutcome> ApplyTradeAsync(TradeInput trade, Cause cause, CancellationToken cancellationToken)
     {
         await _gate.WaitAsync(cancellationToken).ConfigureAwait(false);
@@ -202,18 +220,18 @@ public sealed partial class RiskPipeline : IDisposable
         var messages = new List<object>();
         foreach (var outcome in result.Curves)
         {
-            var report = outcome.Result.Report;
+            var report = outcome.Result?.Report;
             var payload = new Dictionary<string, object?>
             {
                 ["curve"] = CurveKeyLabel.Of(outcome.CurveKey),
                 ["version"] = outcome.Version,
-                ["model"] = report.Model.ToString(),
-                ["parameters"] = outcome.Result.Parameters,
-                ["rmseBp"] = report.RmseBp,
-                ["maxErrorBp"] = report.MaxAbsErrorBp,
-                ["iterations"] = report.Iterations,
-                ["used"] = report.UsedIds.Count,
-                ["excluded"] = report.Exclusions.Select(e => $"{e.Id}: {e.Reason}").ToArray(),
+                ["model"] = report?.Model.ToString(),
+                ["parameters"] = outcome.Result?.Parameters,
+                ["rmseBp"] = report?.RmseBp,
+                ["maxErrorBp"] = report?.MaxAbsErrorBp,
+                ["iterations"] = report?.Iterations,
+                ["used"] = report?.UsedIds.Count ?? 0,
+                ["excluded"] = report?.Exclusions.Select(e => $"{e.Id}: {e.Reason}").ToArray() ?? [],
             };
             if (outcome.Accepted)
             {
