@@ -17,7 +17,7 @@ namespace Monitor.Service.Pipeline;
 /// the refit loop (<see cref="CurveRefitWorker"/>): a burst of quotes is conflated into one refit on the
 /// latest snapshot. A failed log write throws, so the message is not acknowledged and comes back.
 /// </summary>
-public sealed partial class RiskPipeline : IDisposable
+public sealed partial class RiskPipeline
 {
     private readonly RiskEngine _engine;
     private readonly ExposureLogWriter _log;
@@ -25,6 +25,8 @@ public sealed partial class RiskPipeline : IDisposable
     private readonly MonitorMetrics _metrics;
     private readonly TimeProvider _time;
     private readonly ILogger<RiskPipeline> _logger;
+    // Never disposed: the day-end snapshot runs while the host stops, whatever order the container disposes in
+    // (a SemaphoreSlim whose wait handle is never read holds no unmanaged resource).
     private readonly SemaphoreSlim _gate = new(1, 1);
     private readonly Channel<bool> _refitSignal = Channel.CreateBounded<bool>(new BoundedChannelOptions(1) { FullMode = BoundedChannelFullMode.DropWrite });
     private readonly Dictionary<string, Cause> _pendingCause = new(StringComparer.Ordinal);
@@ -210,8 +212,6 @@ public sealed partial class RiskPipeline : IDisposable
             _gate.Release();
         }
     }
-
-    public void Dispose() => _gate.Dispose();
 
     private async Task CommitAsync(EngineResult result, Cause cause, DateTimeOffset now, CancellationToken cancellationToken)
     {
