@@ -62,6 +62,15 @@ public static class ServiceRegistration
             }
         });
 
+        // The bus is up (endpoints bound, broker connected) before the hosted services below start, so the opening
+        // fit's events are not published into a half-started bus; a broker that cannot be reached stops the start.
+        services.AddOptions<MassTransitHostOptions>().Configure(o =>
+        {
+            o.WaitUntilStarted = true;
+            o.StartTimeout = TimeSpan.FromSeconds(60);
+            o.StopTimeout = TimeSpan.FromSeconds(30);
+        });
+
         // Started after the bus, in this order: opening curves, then the refit loop and the snapshots.
         services.AddHostedService<StartOfDayService>();
         services.AddHostedService<CurveRefitWorker>();
