@@ -1,6 +1,7 @@
 using System.Net.Mime;
 using MassTransit;
 using MassTransit.Testing;
+using Microsoft.Extensions.DependencyInjection;
 using Monitor.Analytics.Market;
 using Monitor.Contracts.V1;
 using Monitor.Limits;
@@ -176,6 +177,29 @@ public sealed class PipelineScenarioTests : IDisposable
         await using var service = await ServiceUnderTest.StartAsync();
         await ServiceUnderTest.WaitUntilAsync(() => service.Harness.Published.Select<CurveFitted>().Any(), "opening fit");
         var before = await service.StateAsync();
+        var factory = service.Services.GetRequiredService<System.Diagnostics.Metrics.IMeterFactory>();
+        var rejectedByField = new System.Collections.Concurrent.ConcurrentDictionary<string, long>();
+        using var listener = new System.Diagnostics.Metrics.MeterListener
+        {
+            InstrumentPublished = (instrument, l) =>
+            {
+                if (ReferenceEquals(instrument.Meter.Scope, factory) && instrument.Name == "monitor.messages.rejected")
+                {
+                    l.EnableMeasurementEvents(instrument);
+                }
+            },
+        };
+        listener.SetMeasurementEventCallback<long>((_, value, tags, _) =>
+        {
+            foreach (var tag in tags)
+            {
+                if (tag.Key == "field")
+                {
+                    rejectedByField.AddOrUpdate((string)tag.Value!, value, (_, v) => v + value);
+                }
+            }
+        });
+        listener.Start();
         await service.Harness.Bus.Publish(ServiceUnderTest.Trade("B-1", 1, "new", "NO-SUCH-BOOK", "VGB-2034-11", 1_000_000));
 
         Assert.True(await service.Harness.Published.Any<Fault<TradeBooked>>());
@@ -183,6 +207,7 @@ public sealed class PipelineScenarioTests : IDisposable
         Assert.Contains("book: 'NO-SUCH-BOOK'", fault.Exceptions[0].Message, StringComparison.Ordinal);
         Assert.Equal(typeof(Monitor.Service.Messaging.MessageRejectedException).FullName, fault.Exceptions[0].ExceptionType);
         Assert.Equal(before, await service.StateAsync());
+        Assert.Equal(1, rejectedByField.GetValueOrDefault("book"));
     }
 
     private static double Dv01(RiskEngine engine) => engine.Books["RATES-CURVE"].Exposures!.Totals[ExposureMeasure.Dv01];

@@ -39,6 +39,8 @@ public sealed class ServiceUnderTest : IAsyncDisposable
 
     public ITestHarness Harness { get; }
 
+    public IServiceProvider Services => _provider;
+
     public RiskPipeline Pipeline { get; }
 
     public FakeTimeProvider Time { get; }
