@@ -196,11 +196,14 @@ public sealed class RiskEngine
         Move(state, bond, faceAmount);
     }
 
-    /// <summary>Applies a trade (new, amend or cancel by version) to its book and revalues that book only.</summary>
-    public EngineResult ApplyTrade(TradeInput trade, DateTimeOffset now)
+    /// <summary>
+    /// What <see cref="ApplyTrade"/> would do with the trade, changing nothing: throws the same rejections, so the
+    /// caller can make an applied trade durable (the exposure log) before the state changes.
+    /// </summary>
+    public TradeOutcome CheckTrade(TradeInput trade)
     {
         ArgumentNullException.ThrowIfNull(trade);
-        var book = RequireBook(trade.Book, "book");
+        RequireBook(trade.Book, "book");
         var bond = RequireInstrument(trade.InstrumentId, "instrumentId");
         CheckFace(trade.FaceAmount);
         if (trade.Action != TradeAction.Cancel && bond.MaturityDate <= ValuationDate)
@@ -211,6 +214,15 @@ public sealed class RiskEngine
         {
             throw new MessageRejectedException("cleanPrice", trade.CleanPrice.ToString("G", CultureInfo.InvariantCulture), $"is outside (0, {BondQuote.MaxPrice}] per 100 face.");
         }
+        return _trades.Classify(trade).Outcome;
+    }
+
+    /// <summary>Applies a trade (new, amend or cancel by version) to its book and revalues that book only.</summary>
+    public EngineResult ApplyTrade(TradeInput trade, DateTimeOffset now)
+    {
+        CheckTrade(trade);
+        var book = _books[trade.Book];
+        var bond = _instruments[trade.InstrumentId];
         var (outcome, previous) = _trades.Classify(trade);
         var result = new EngineResult { Trade = outcome };
         if (outcome != TradeOutcome.Applied)

@@ -139,8 +139,10 @@ public sealed partial class RiskPipeline
         try
         {
             var now = _time.GetUtcNow();
-            var result = _engine.ApplyTrade(trade, now);
-            if (result.Trade == TradeOutcome.Applied)
+            // The trade is written to the exposure log before the books change: a failed write throws with the state
+            // untouched, the message is retried, and the retry applies it (rather than finding a duplicate).
+            var outcome = _engine.CheckTrade(trade);
+            if (outcome == TradeOutcome.Applied)
             {
                 _log.Append(ExposureLogKinds.TradeApplied, cause.EventTime, LogCause(cause), new Dictionary<string, object?>
                 {
@@ -155,8 +157,9 @@ public sealed partial class RiskPipeline
             }
             else
             {
-                LogTradeIgnored(trade.TradeId, trade.Version, result.Trade.ToString()!);
+                LogTradeIgnored(trade.TradeId, trade.Version, outcome.ToString());
             }
+            var result = _engine.ApplyTrade(trade, now);
             await CommitAsync(result, cause, now, cancellationToken).ConfigureAwait(false);
             return result.Trade!.Value;
         }

@@ -210,6 +210,44 @@ public sealed class PipelineScenarioTests : IDisposable
         Assert.Equal(1, rejectedByField.GetValueOrDefault("book"));
     }
 
+    [Fact]
+    public async Task A_trade_whose_log_write_fails_changes_nothing_and_is_applied_once_on_retry()
+    {
+        var fail = new System.Runtime.CompilerServices.StrongBox<bool>();
+        await using var service = await ServiceUnderTest.StartAsync(logStream: s => new FaultyStream(s, () => Volatile.Read(ref fail.Value)));
+        await ServiceUnderTest.WaitUntilAsync(() => service.Harness.Published.Select<CurveFitted>().Any(), "opening fit");
+        var writer = service.Services.GetRequiredService<Monitor.Service.Audit.ExposureLogWriter>();
+        Task<double> Position() => service.Pipeline.ReadAsync(e => e.Books["RATES-CORE"].Positions.GetValueOrDefault("VGB-2034-11"));
+
+        Volatile.Write(ref fail.Value, true);
+        await service.Harness.Bus.Publish(ServiceUnderTest.Trade("L-1", 1, "new", "RATES-CORE", "VGB-2034-11", 3_000_000));
+        await ServiceUnderTest.WaitUntilAsync(() => !writer.IsHealthy, "a failed log write");
+        Assert.Equal(0, await Position());
+
+        Volatile.Write(ref fail.Value, false);
+        await ServiceUnderTest.WaitUntilAsync(async () => await Position() != 0, "the retried trade applied");
+        Assert.Equal(3_000_000, await Position());
+        Assert.Equal(1, await service.Pipeline.ReadAsync(e => e.Trades.Count));
+        Assert.False(await service.Harness.Published.Any<Fault<TradeBooked>>());
+        // Exactly one complete trade record for L-1 in the exposure log (the failed attempt left at most a torn line).
+        var records = Directory.GetFiles(service.LogFolder).SelectMany(File.ReadAllLines)
+            .Where(l => l.Contains("\"L-1\"", StringComparison.Ordinal) && IsJson(l)).ToArray();
+        Assert.Single(records);
+    }
+
+    private static bool IsJson(string line)
+    {
+        try
+        {
+            using var document = System.Text.Json.JsonDocument.Parse(line);
+            return true;
+        }
+        catch (System.Text.Json.JsonException)
+        {
+            return false;
+        }
+    }
+
     private static double Dv01(RiskEngine engine) => engine.Books["RATES-CURVE"].Exposures!.Totals[ExposureMeasure.Dv01];
 
     private static void Accept(RiskEngine engine, IReadOnlyList<BondQuote> quotes)

@@ -2,6 +2,7 @@ using MassTransit;
 using MassTransit.Testing;
 using Microsoft.Extensions.Configuration;
 using Microsoft.Extensions.DependencyInjection;
+using Microsoft.Extensions.Options;
 using Microsoft.Extensions.Time.Testing;
 using Monitor.Analytics.Market;
 using Monitor.Contracts.V1;
@@ -61,7 +62,9 @@ public sealed class ServiceUnderTest : IAsyncDisposable
         ["ExposureLog:FlushToDisk"] = "false",
     };
 
-    public static async Task<ServiceUnderTest> StartAsync(string? limitsFile = null)
+    /// <param name="limitsFile">A limits file other than Data/limits.json.</param>
+    /// <param name="logStream">Wraps each exposure-log day file's stream (to inject write failures).</param>
+    public static async Task<ServiceUnderTest> StartAsync(string? limitsFile = null, Func<Stream, Stream>? logStream = null)
     {
         var folder = new TempFolder();
         var logFolder = folder.Combine("exposure-log");
@@ -71,6 +74,10 @@ public sealed class ServiceUnderTest : IAsyncDisposable
         services.AddLogging();
         services.AddSingleton<TimeProvider>(time);
         services.AddMonitorServiceCore(configuration, null, static (s, bus) => s.AddMassTransitTestHarness(bus));
+        if (logStream is not null)
+        {
+            services.AddSingleton(sp => new ExposureLogWriter(sp.GetRequiredService<IOptions<ExposureLogOptions>>().Value, sp.GetRequiredService<TimeProvider>(), logStream));
+        }
         services.Configure<TestHarnessOptions>(o => o.TestInactivityTimeout = TimeSpan.FromSeconds(2));
         var provider = services.BuildServiceProvider(validateScopes: true);
         var service = new ServiceUnderTest(provider, folder, time, logFolder);
