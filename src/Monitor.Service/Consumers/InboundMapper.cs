@@ -77,7 +77,14 @@ public static class InboundMapper
         catch (ArgumentException ex)
         {
             var field = ex.ParamName is { } p && QuoteFieldToWire.TryGetValue(p, out var wire) ? wire : "midCleanPrice";
-            throw new MessageRejectedException(field, null, ex.Message);
+            double? value = field switch
+            {
+                "bidCleanPrice" => m.BidCleanPrice,
+                "askCleanPrice" => m.AskCleanPrice,
+                "yield" => m.Yield,
+                _ => m.MidCleanPrice,
+            };
+            throw new MessageRejectedException(field, field == "instrumentId" ? m.InstrumentId : value is { } v ? Text(v) : null, ex.Message);
         }
     }
 
@@ -108,6 +115,30 @@ public static class InboundMapper
             throw new MessageRejectedException("instrumentId", m.InstrumentId, "is blank.");
         }
         return new TradeInput(m.TradeId, m.Version, action, m.Book, m.InstrumentId, m.FaceAmount, m.CleanPrice, m.TradeTime);
+    }
+
+    /// <summary>The points of a par-yield message as (tenor, decimal par yield); the engine checks tenors and ranges.</summary>
+    public static IReadOnlyList<(string Tenor, double ParYield)> ToParYields(ParYieldsPublished m)
+    {
+        ArgumentNullException.ThrowIfNull(m);
+        if (string.IsNullOrWhiteSpace(m.CurveId))
+        {
+            throw new MessageRejectedException("curveId", m.CurveId, "is blank; use \"government\".");
+        }
+        if (m.Points is null || m.Points.Count == 0)
+        {
+            throw new MessageRejectedException("points", null, "is missing or empty; give par yields at tenors such as 1Y, 2Y, 5Y, 10Y.");
+        }
+        var points = new List<(string, double)>(m.Points.Count);
+        for (var i = 0; i < m.Points.Count; i++)
+        {
+            if (m.Points[i] is not { } point || string.IsNullOrWhiteSpace(point.Tenor))
+            {
+                throw new MessageRejectedException($"points[{i}].tenor", m.Points[i]?.Tenor, "is missing; use a tenor such as 3M or 10Y.");
+            }
+            points.Add((point.Tenor.Trim(), point.ParYield));
+        }
+        return points;
     }
 
     private static string Text(double value) => value.ToString("G", CultureInfo.InvariantCulture);

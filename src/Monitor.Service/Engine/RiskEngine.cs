@@ -25,6 +25,7 @@ public sealed class RiskEngine
     private readonly Dictionary<string, BookState> _books = new(StringComparer.Ordinal);
     private readonly CashFlowDateIndex _dates = new();
     private readonly BondCurveFitter _baseFitter = new();
+    private readonly ParYieldCurveFitter _parYieldFitter = new();
     private readonly Dictionary<string, SpreadCurveFitter> _spreadFitters = new(StringComparer.Ordinal);
     private readonly TradeRegister _trades = new();
     private readonly LimitSet _limits;
@@ -77,14 +78,7 @@ public sealed class RiskEngine
     {
         ArgumentNullException.ThrowIfNull(quote);
         var bond = RequireInstrument(quote.InstrumentId, "instrumentId");
-        if (quote.QuoteTime > now + TimeSpan.FromMinutes(5))
-        {
-            throw new MessageRejectedException("quoteTime", Iso(quote.QuoteTime), $"is in the future (now {Iso(now)}); check the source's clock.");
-        }
-        if (quote.QuoteTime < now - TimeSpan.FromDays(7))
-        {
-            throw new MessageRejectedException("quoteTime", Iso(quote.QuoteTime), $"is more than 7 days old (now {Iso(now)}).");
-        }
+        CheckEventTime("quoteTime", quote.QuoteTime, now);
         var priced = Price(bond, quote);
         var curve = _curves[CurveKey.Normalize(bond.SpreadGroup)];
         if (curve.LatestQuotes.TryGetValue(bond.Id, out var previous) && previous.Quote.QuoteTime > quote.QuoteTime)
@@ -107,24 +101,74 @@ public sealed class RiskEngine
     public EngineResult RefitDirtyCurves(DateTimeOffset now)
     {
         var result = new EngineResult();
-        var changed = new HashSet<string>(StringComparer.Ordinal);
         var government = _curves[CurveKey.Government];
+        var governmentChanged = false;
         if (government.Dirty)
         {
             var outcome = FitGovernment(government, now);
             result.Curves.Add(outcome);
-            if (outcome.Accepted)
-            {
-                changed.Add(government.Key);
-            }
+            governmentChanged = outcome.Accepted;
         }
+        RefitSpreadsAndRevalue(result, governmentChanged, now);
+        return result;
+    }
+
+    /// <summary>
+    /// Fits the government curve from par yields at tenors (decimals, bond-equivalent semiannual) through the
+    /// same quality gate as a bond fit; an accepted curve refits the spread curves on it and revalues every book.
+    /// Only the government curve has par yields (<paramref name="curveId"/> "government").
+    /// </summary>
+    public EngineResult ApplyParYields(string curveId, DateTimeOffset asOf, IReadOnlyList<(string Tenor, double ParYield)> points, DateTimeOffset now)
+    {
+        ArgumentNullException.ThrowIfNull(points);
+        if (curveId != CurveKeyLabel.Government)
+        {
+            throw new MessageRejectedException("curveId", curveId, $"has no par-yield fit; only the '{CurveKeyLabel.Government}' curve is fitted from par yields.");
+        }
+        CheckEventTime("asOf", asOf, now);
+        if (points.Count == 0)
+        {
+            throw new MessageRejectedException("points", "[]", "is empty; give par yields at tenors such as 1Y, 2Y, 5Y, 10Y.");
+        }
+        var fitPoints = new List<Analytics.Fitting.ParYieldPoint>(points.Count);
+        var seen = new HashSet<double>();
+        for (var i = 0; i < points.Count; i++)
+        {
+            var (tenor, parYield) = points[i];
+            if (!Tenor.TryParseYears(tenor, out var years) || !seen.Add(years))
+            {
+                throw new MessageRejectedException($"points[{i}].tenor", tenor, "is not a tenor such as 3M or 10Y, or appears twice.");
+            }
+            if (!double.IsFinite(parYield) || parYield < BondQuote.MinYield || parYield > BondQuote.MaxYield)
+            {
+                throw new MessageRejectedException($"points[{i}].parYield", parYield.ToString("G", CultureInfo.InvariantCulture),
+                    $"is outside [{BondQuote.MinYield.ToString(CultureInfo.InvariantCulture)}, {BondQuote.MaxYield.ToString(CultureInfo.InvariantCulture)}] (decimals: 0.05 = 5%).");
+            }
+            fitPoints.Add(new Analytics.Fitting.ParYieldPoint(years, parYield));
+        }
+        var government = _curves[CurveKey.Government];
+        var result = new EngineResult();
+        var outcome = Conclude(government, () => _parYieldFitter.Fit(fitPoints, Settings.BaseFit, government.Current?.Parameters), Settings.BaseGate, now, fitPoints.Count);
+        result.Curves.Add(outcome);
+        RefitSpreadsAndRevalue(result, outcome.Accepted, now);
+        return result;
+    }
+
+    private void RefitSpreadsAndRevalue(EngineResult result, bool governmentChanged, DateTimeOffset now)
+    {
+        var government = _curves[CurveKey.Government];
         if (government.Curve is null)
         {
-            return result;
+            return;
+        }
+        var changed = new HashSet<string>(StringComparer.Ordinal);
+        if (governmentChanged)
+        {
+            changed.Add(government.Key);
         }
         foreach (var curve in _curves.Values.Where(c => !CurveKey.IsGovernment(c.Key)).OrderBy(c => c.Key, StringComparer.Ordinal))
         {
-            if (curve.Dirty || (changed.Contains(CurveKey.Government) && curve.LatestQuotes.Count > 0))
+            if (curve.Dirty || (governmentChanged && curve.LatestQuotes.Count > 0))
             {
                 var outcome = FitSpread(curve, government.Curve, now);
                 result.Curves.Add(outcome);
@@ -136,10 +180,9 @@ public sealed class RiskEngine
         }
         if (changed.Count > 0)
         {
-            var affected = _books.Values.Where(b => changed.Contains(CurveKey.Government) || b.Ledger.CurveKeys.Any(changed.Contains));
+            var affected = _books.Values.Where(b => governmentChanged || b.Ledger.CurveKeys.Any(changed.Contains));
             Revalue(affected, now, result);
         }
-        return result;
     }
 
     /// <summary>Loads a start-of-day position (no trade id, no limit events until the first revaluation).</summary>
@@ -151,11 +194,14 @@ public sealed class RiskEngine
         Move(state, bond, faceAmount);
     }
 
-    /// <summary>Applies a trade (new, amend or cancel by version) to its book and revalues that book only.</summary>
-    public EngineResult ApplyTrade(TradeInput trade, DateTimeOffset now)
+    /// <summary>
+    /// What <see cref="ApplyTrade"/> would do with the trade, changing nothing: throws the same rejections, so the
+    /// caller can make an applied trade durable (the exposure log) before the state changes.
+    /// </summary>
+    public TradeOutcome CheckTrade(TradeInput trade)
     {
         ArgumentNullException.ThrowIfNull(trade);
-        var book = RequireBook(trade.Book, "book");
+        RequireBook(trade.Book, "book");
         var bond = RequireInstrument(trade.InstrumentId, "instrumentId");
         CheckFace(trade.FaceAmount);
         if (trade.Action != TradeAction.Cancel && bond.MaturityDate <= ValuationDate)
@@ -166,6 +212,15 @@ public sealed class RiskEngine
         {
             throw new MessageRejectedException("cleanPrice", trade.CleanPrice.ToString("G", CultureInfo.InvariantCulture), $"is outside (0, {BondQuote.MaxPrice}] per 100 face.");
         }
+        return _trades.Classify(trade).Outcome;
+    }
+
+    /// <summary>Applies a trade (new, amend or cancel by version) to its book and revalues that book only.</summary>
+    public EngineResult ApplyTrade(TradeInput trade, DateTimeOffset now)
+    {
+        CheckTrade(trade);
+        var book = _books[trade.Book];
+        var bond = _instruments[trade.InstrumentId];
         var (outcome, previous) = _trades.Classify(trade);
         var result = new EngineResult { Trade = outcome };
         if (outcome != TradeOutcome.Applied)
@@ -229,8 +284,7 @@ public sealed class RiskEngine
     private CurveFitOutcome FitGovernment(CurveState curve, DateTimeOffset now)
     {
         var (instruments, excluded) = FitInputs(curve, now);
-        var result = _baseFitter.Fit(instruments, Settings.BaseFit, curve.Current?.Parameters, excluded);
-        return Conclude(curve, result, Settings.BaseGate, now, instruments.Count + excluded.Count);
+        return Conclude(curve, () => _baseFitter.Fit(instruments, Settings.BaseFit, curve.Current?.Parameters, excluded), Settings.BaseGate, now, instruments.Count + excluded.Count);
     }
 
     private CurveFitOutcome FitSpread(CurveState curve, IZeroCurve baseCurve, DateTimeOffset now)
@@ -240,13 +294,27 @@ public sealed class RiskEngine
             _spreadFitters[curve.Key] = fitter = new SpreadCurveFitter();
         }
         var (instruments, excluded) = FitInputs(curve, now);
-        var result = fitter.Fit(baseCurve, instruments, Settings.SpreadFit, curve.Current?.Parameters, excluded);
-        return Conclude(curve, result, Settings.SpreadGate, now, instruments.Count + excluded.Count);
+        return Conclude(curve, () => fitter.Fit(baseCurve, instruments, Settings.SpreadFit, curve.Current?.Parameters, excluded), Settings.SpreadGate, now, instruments.Count + excluded.Count);
     }
 
-    private static CurveFitOutcome Conclude(CurveState curve, CurveFitResult result, FitQualityGate gate, DateTimeOffset now, int offered)
+    /// <summary>
+    /// Runs a fit and puts it through the gate. A fit the fitter refuses to run (too few usable points, say)
+    /// is a rejection like any other: the last good curve stays, and the refit of the other curves goes on.
+    /// </summary>
+    private static CurveFitOutcome Conclude(CurveState curve, Func<CurveFitResult> fit, FitQualityGate gate, DateTimeOffset now, int offered)
     {
         curve.Dirty = false;
+        CurveFitResult result;
+        try
+        {
+            result = fit();
+        }
+        catch (ArgumentException ex)
+        {
+            curve.LastFitRejected = true;
+            var refused = new FitQualityVerdict(false, ["no fit: " + ex.Message]);
+            return new CurveFitOutcome(curve.Key, false, null, refused, curve.Version, curve.FittedAt, offered);
+        }
         curve.LastReport = result.Report;
         var verdict = gate.Evaluate(result.Report);
         curve.LastFitRejected = !verdict.Passed;
@@ -337,6 +405,19 @@ public sealed class RiskEngine
             throw new MessageRejectedException(quote.CleanMid is null ? "yield" : "mid", (quote.CleanMid ?? quote.Yield)?.ToString("G", CultureInfo.InvariantCulture), ex.Message);
         }
         return new PricedQuote(quote, bond, settlement, priced.CleanPrice, priced.DirtyPrice, priced.Yield, priced.ModifiedDuration, priced.Times, priced.Amounts);
+    }
+
+    /// <summary>An event time more than 5 minutes ahead of the clock or more than 7 days behind it is refused.</summary>
+    private static void CheckEventTime(string field, DateTimeOffset time, DateTimeOffset now)
+    {
+        if (time > now + TimeSpan.FromMinutes(5))
+        {
+            throw new MessageRejectedException(field, Iso(time), $"is in the future (now {Iso(now)}); check the source's clock.");
+        }
+        if (time < now - TimeSpan.FromDays(7))
+        {
+            throw new MessageRejectedException(field, Iso(time), $"is more than 7 days old (now {Iso(now)}).");
+        }
     }
 
     private Bond RequireInstrument(string id, string field) =>

@@ -15,6 +15,7 @@ public static class InboundEndpoints
     public const string Instruments = "monitor-instruments";
     public const string Quotes = "monitor-quotes";
     public const string Trades = "monitor-trades";
+    public const string ParYields = "monitor-par-yields";
 
     public static void AddConsumers(IBusRegistrationConfigurator bus)
     {
@@ -22,14 +23,18 @@ public static class InboundEndpoints
         bus.AddConsumer<InstrumentDefinedConsumer>();
         bus.AddConsumer<BondQuotedConsumer>();
         bus.AddConsumer<TradeBookedConsumer>();
+        bus.AddConsumer<ParYieldsPublishedConsumer>();
     }
 
     public static void Configure(IBusRegistrationContext context, IBusFactoryConfigurator cfg, TransportOptions transport)
     {
         ArgumentNullException.ThrowIfNull(cfg);
+        // Lets .NET producers on this bus send plain JSON too (content type application/json); the default stays the envelope.
+        cfg.AddRawJsonSerializer(RawSerializerOptions.AnyMessageType);
         Endpoint<InstrumentDefinedConsumer>(context, cfg, Instruments, transport);
         Endpoint<BondQuotedConsumer>(context, cfg, Quotes, transport);
         Endpoint<TradeBookedConsumer>(context, cfg, Trades, transport);
+        Endpoint<ParYieldsPublishedConsumer>(context, cfg, ParYields, transport);
     }
 
     private static void Endpoint<TConsumer>(IBusRegistrationContext context, IBusFactoryConfigurator cfg, string queue, TransportOptions transport)

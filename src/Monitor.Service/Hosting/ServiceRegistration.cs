@@ -12,17 +12,25 @@ namespace Monitor.Service.Hosting;
 /// <summary>Wires the service: options validated on start, the engine, the pipeline and its workers, the exposure log, the bus, health.</summary>
 public static class ServiceRegistration
 {
-    public static IServiceCollection AddMonitorService(this IServiceCollection services, IConfiguration configuration, Action<IBusRegistrationConfigurator>? extraConsumers = null)
+    public static IServiceCollection AddMonitorService(this IServiceCollection services, IConfiguration configuration, Action<IBusRegistrationConfigurator>? extraConsumers = null) =>
+        AddMonitorServiceCore(services, configuration, extraConsumers, static (s, bus) => s.AddMassTransit(bus));
+
+    /// <summary>
+    /// The same wiring with the MassTransit registration supplied by the caller: tests pass
+    /// <c>(s, bus) =&gt; s.AddMassTransitTestHarness(bus)</c> so the harness observes the bus the service runs on.
+    /// </summary>
+    internal static IServiceCollection AddMonitorServiceCore(this IServiceCollection services, IConfiguration configuration, Action<IBusRegistrationConfigurator>? extraConsumers,
+        Func<IServiceCollection, Action<IBusRegistrationConfigurator>, IServiceCollection> addBus)
     {
         ArgumentNullException.ThrowIfNull(configuration);
+        ArgumentNullException.ThrowIfNull(addBus);
         services.TryAddTimeProvider();
         services.AddOptions<MonitorOptions>().Bind(configuration.GetSection(MonitorOptions.SectionName)).ValidateOnStart();
         services.AddSingleton<IValidateOptions<MonitorOptions>, MonitorOptionsValidator>();
         services.AddOptions<TransportOptions>().Bind(configuration.GetSection(TransportOptions.SectionName)).ValidateOnStart();
         services.AddSingleton<IValidateOptions<TransportOptions>, TransportOptionsValidator>();
-        services.AddOptions<ExposureLogOptions>().Bind(configuration.GetSection(ExposureLogOptions.SectionName))
-            .Validate(o => o.Validate().Count == 0, "ExposureLog section is invalid: see the messages logged at start-up.")
-            .ValidateOnStart();
+        services.AddOptions<ExposureLogOptions>().Bind(configuration.GetSection(ExposureLogOptions.SectionName)).ValidateOnStart();
+        services.AddSingleton<IValidateOptions<ExposureLogOptions>>(new ExposureLogOptionsValidator());
 
         services.AddMetrics();
         services.AddSingleton<MonitorMetrics>();
@@ -31,7 +39,7 @@ public static class ServiceRegistration
         services.AddSingleton<RiskPipeline>();
 
         var transport = configuration.GetSection(TransportOptions.SectionName).Get<TransportOptions>() ?? new TransportOptions();
-        services.AddMassTransit(bus =>
+        addBus(services, bus =>
         {
             InboundEndpoints.AddConsumers(bus);
             extraConsumers?.Invoke(bus);
@@ -52,6 +60,15 @@ public static class ServiceRegistration
                     cfg.ConfigureEndpoints(context);
                 });
             }
+        });
+
+        // The bus is up (endpoints bound, broker connected) before the hosted services below start, so the opening
+        // fit's events are not published into a half-started bus; a broker that cannot be reached stops the start.
+        services.AddOptions<MassTransitHostOptions>().Configure(o =>
+        {
+            o.WaitUntilStarted = true;
+            o.StartTimeout = TimeSpan.FromSeconds(60);
+            o.StopTimeout = TimeSpan.FromSeconds(30);
         });
 
         // Started after the bus, in this order: opening curves, then the refit loop and the snapshots.

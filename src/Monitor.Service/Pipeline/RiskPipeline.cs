@@ -17,7 +17,7 @@ namespace Monitor.Service.Pipeline;
 /// the refit loop (<see cref="CurveRefitWorker"/>): a burst of quotes is conflated into one refit on the
 /// latest snapshot. A failed log write throws, so the message is not acknowledged and comes back.
 /// </summary>
-public sealed partial class RiskPipeline : IDisposable
+public sealed partial class RiskPipeline
 {
     private readonly RiskEngine _engine;
     private readonly ExposureLogWriter _log;
@@ -25,6 +25,8 @@ public sealed partial class RiskPipeline : IDisposable
     private readonly MonitorMetrics _metrics;
     private readonly TimeProvider _time;
     private readonly ILogger<RiskPipeline> _logger;
+    // Never disposed: the day-end snapshot runs while the host stops, whatever order the container disposes in
+    // (a SemaphoreSlim whose wait handle is never read holds no unmanaged resource).
     private readonly SemaphoreSlim _gate = new(1, 1);
     private readonly Channel<bool> _refitSignal = Channel.CreateBounded<bool>(new BoundedChannelOptions(1) { FullMode = BoundedChannelFullMode.DropWrite });
     private readonly Dictionary<string, Cause> _pendingCause = new(StringComparer.Ordinal);
@@ -113,14 +115,34 @@ public sealed partial class RiskPipeline : IDisposable
         }
     }
 
+    /// <summary>Fits the government curve from par yields (through the quality gate), revalues the books, logs and publishes.</summary>
+    public async Task ApplyParYieldsAsync(string curveId, DateTimeOffset asOf, IReadOnlyList<(string Tenor, double ParYield)> points, Cause cause, CancellationToken cancellationToken)
+    {
+        await _gate.WaitAsync(cancellationToken).ConfigureAwait(false);
+        try
+        {
+            var now = _time.GetUtcNow();
+            var started = _time.GetTimestamp();
+            var result = _engine.ApplyParYields(curveId, asOf, points, now);
+            _metrics.FitDuration.Record(_time.GetElapsedTime(started).TotalMilliseconds - result.ExposureMilliseconds);
+            await CommitAsync(result, cause, now, cancellationToken).ConfigureAwait(false);
+        }
+        finally
+        {
+            _gate.Release();
+        }
+    }
+
     public async Task<TradeOutcome> ApplyTradeAsync(TradeInput trade, Cause cause, CancellationToken cancellationToken)
     {
         await _gate.WaitAsync(cancellationToken).ConfigureAwait(false);
         try
         {
             var now = _time.GetUtcNow();
-            var result = _engine.ApplyTrade(trade, now);
-            if (result.Trade == TradeOutcome.Applied)
+            // The trade is written to the exposure log before the books change: a failed write throws with the state
+            // untouched, the message is retried, and the retry applies it (rather than finding a duplicate).
+            var outcome = _engine.CheckTrade(trade);
+            if (outcome == TradeOutcome.Applied)
             {
                 _log.Append(ExposureLogKinds.TradeApplied, cause.EventTime, LogCause(cause), new Dictionary<string, object?>
                 {
@@ -135,8 +157,9 @@ public sealed partial class RiskPipeline : IDisposable
             }
             else
             {
-                LogTradeIgnored(trade.TradeId, trade.Version, result.Trade.ToString()!);
+                LogTradeIgnored(trade.TradeId, trade.Version, outcome.ToString());
             }
+            var result = _engine.ApplyTrade(trade, now);
             await CommitAsync(result, cause, now, cancellationToken).ConfigureAwait(false);
             return result.Trade!.Value;
         }
@@ -193,8 +216,6 @@ public sealed partial class RiskPipeline : IDisposable
         }
     }
 
-    public void Dispose() => _gate.Dispose();
-
     private async Task CommitAsync(EngineResult result, Cause cause, DateTimeOffset now, CancellationToken cancellationToken)
     {
         var logCause = LogCause(cause);
@@ -202,18 +223,18 @@ public sealed partial class RiskPipeline : IDisposable
         var messages = new List<object>();
         foreach (var outcome in result.Curves)
         {
-            var report = outcome.Result.Report;
+            var report = outcome.Result?.Report;
             var payload = new Dictionary<string, object?>
             {
                 ["curve"] = CurveKeyLabel.Of(outcome.CurveKey),
                 ["version"] = outcome.Version,
-                ["model"] = report.Model.ToString(),
-                ["parameters"] = outcome.Result.Parameters,
-                ["rmseBp"] = report.RmseBp,
-                ["maxErrorBp"] = report.MaxAbsErrorBp,
-                ["iterations"] = report.Iterations,
-                ["used"] = report.UsedIds.Count,
-                ["excluded"] = report.Exclusions.Select(e => $"{e.Id}: {e.Reason}").ToArray(),
+                ["model"] = report?.Model.ToString(),
+                ["parameters"] = outcome.Result?.Parameters,
+                ["rmseBp"] = report?.RmseBp,
+                ["maxErrorBp"] = report?.MaxAbsErrorBp,
+                ["iterations"] = report?.Iterations,
+                ["used"] = report?.UsedIds.Count ?? 0,
+                ["excluded"] = report?.Exclusions.Select(e => $"{e.Id}: {e.Reason}").ToArray() ?? [],
             };
             if (outcome.Accepted)
             {
