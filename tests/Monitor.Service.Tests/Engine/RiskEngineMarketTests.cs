@@ -96,7 +96,7 @@ public sealed class RiskEngineMarketTests
     {
         var engine = TestMarket.Engine();
         var points = Monitor.Files.ParYieldFile.Read(TestMarket.Data("par-yields.csv")).Single().Points
-            .Select(p => (Monitor.Analytics.Fitting.ParYieldCurveFitter.TenorLabel(p.TenorYears), p.ParYield)).ToArray();
+            .Select(p => (Monitor.Analytics.Fitting.ParYieldCurveFitter.TenorLabel(p.TenorYears), p.ParYield!.Value)).ToArray();
 
         var result = engine.ApplyParYields(CurveKeyLabel.Government, TestMarket.Now, points, TestMarket.Now);
 

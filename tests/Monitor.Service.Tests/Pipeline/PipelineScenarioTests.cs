@@ -149,7 +149,7 @@ public sealed class PipelineScenarioTests : IDisposable
         await using var service = await ServiceUnderTest.StartAsync();
         await ServiceUnderTest.WaitUntilAsync(() => service.Harness.Published.Select<CurveFitted>().Any(), "opening fit");
         var points = Monitor.Files.ParYieldFile.Read(TestMarket.Data("par-yields.csv")).Single().Points
-            .Select(p => new Monitor.Contracts.V1.ParYieldPoint { Tenor = Monitor.Analytics.Fitting.ParYieldCurveFitter.TenorLabel(p.TenorYears), ParYield = p.ParYield })
+            .Select(p => new Monitor.Contracts.V1.ParYieldPoint { Tenor = Monitor.Analytics.Fitting.ParYieldCurveFitter.TenorLabel(p.TenorYears), ParYield = p.ParYield!.Value })
             .ToArray();
         await service.Harness.Bus.Publish(new ParYieldsPublished { CurveId = "government", AsOf = TestMarket.Now, Points = points, Source = "test" });
 
