@@ -1,3 +1,4 @@
+using Microsoft.Extensions.Diagnostics.HealthChecks;
 using Monitor.Service.Engine;
 using Monitor.Service.Journal;
 using Monitor.Service.Tests.Support;
@@ -28,10 +29,13 @@ public sealed class JournalFailureTests
         Assert.False(string.IsNullOrWhiteSpace(ex.Reason));
         Assert.False(journal.IsHealthy);
         Assert.Contains(dayPath, journal.LastError, StringComparison.Ordinal);
+        var health = await new JournalHealthCheck(journal).CheckHealthAsync(new HealthCheckContext());
+        Assert.Equal(HealthStatus.Unhealthy, health.Status);
 
         Directory.Delete(dayPath);
         await journal.AppendTradeAsync(T("T-1"));
         Assert.True(journal.IsHealthy);
+        Assert.Equal(HealthStatus.Healthy, (await new JournalHealthCheck(journal).CheckHealthAsync(new HealthCheckContext())).Status);
         Assert.Null(journal.LastError);
         var contents = JournalReplay.Read(folder.Path, Day);
         Assert.Empty(contents.Problems);
