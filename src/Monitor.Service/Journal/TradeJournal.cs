@@ -1,0 +1,245 @@
+using System.Threading.Channels;
+using Monitor.Analytics.Market;
+using Monitor.Service.Engine;
+
+namespace Monitor.Service.Journal;
+
+/// <summary>
+/// Append-only journal of accepted trades and of quotes, one file per business day (format MTJ-1, README.md in
+/// this folder). Group commit: appends go through a queue to one writer loop, which writes every record waiting
+/// and then fsyncs once (<c>FileStream.Flush(true)</c>) for the whole batch, so concurrent callers share a flush.
+/// <see cref="AppendTradeAsync"/> completes only after its record is on the disk; <see cref="AppendQuote"/> does
+/// not wait (quotes are refreshed all day) but keeps file order with the trades. A failed write fails every
+/// trade of its batch with <see cref="JournalWriteException"/>, makes the journal unhealthy until a later write
+/// succeeds, and is cut back (no partial line stays) before the next write. One journal per folder.
+/// </summary>
+public sealed class TradeJournal : IAsyncDisposable
+{
+    private readonly string _folder;
+    private readonly TimeSpan _dayOffset;
+    private readonly int _maxBatch;
+    private readonly TimeProvider _time;
+    private readonly Channel<Entry> _queue = Channel.CreateUnbounded<Entry>(new UnboundedChannelOptions { SingleReader = true });
+    private readonly List<JournalProblem> _repairs = [];
+    private readonly Task _loop;
+    private FileStream? _stream;
+    private string? _path;
+    private long _seq;
+    private long _goodLength;
+    private bool _needsRepair;
+    private volatile string? _lastError;
+    private long _flushes;
+    private long _records;
+
+    public TradeJournal(JournalOptions options, TimeProvider time)
+    {
+        ArgumentNullException.ThrowIfNull(options);
+        ArgumentNullException.ThrowIfNull(time);
+        if (string.IsNullOrWhiteSpace(options.Folder))
+        {
+            throw new ArgumentException("Journal:Folder is blank; set the folder of the trade journal.", nameof(options));
+        }
+        if (options.MaxBatch < 1)
+        {
+            throw new ArgumentException($"Journal:MaxBatch {options.MaxBatch} must be 1 or more.", nameof(options));
+        }
+        _folder = options.Folder;
+        _dayOffset = options.BusinessDayUtcOffset;
+        _maxBatch = options.MaxBatch;
+        _time = time;
+        _loop = Task.Run(RunAsync);
+    }
+
+    /// <summary>False from a failed write until the next successful one.</summary>
+    public bool IsHealthy => _lastError is null;
+
+    /// <summary>The last failure (path and reason); null while healthy.</summary>
+    public string? LastError => _lastError;
+
+    /// <summary>Torn tails cut off when a day file was opened for appending (found before the first write to it).</summary>
+    public IReadOnlyList<JournalProblem> Repairs
+    {
+        get
+        {
+            lock (_repairs)
+            {
+                return _repairs.ToArray();
+            }
+        }
+    }
+
+    /// <summary>Flushes (one per written batch; an fsync when the batch holds a trade).</summary>
+    internal long FlushCount => Interlocked.Read(ref _flushes);
+
+    /// <summary>Records written since start.</summary>
+    internal long RecordCount => Interlocked.Read(ref _records);
+
+    /// <summary>The day file of a business day in this journal's folder.</summary>
+    public string PathOf(DateOnly day) => JournalFiles.PathOf(_folder, day);
+
+    /// <summary>
+    /// Queues the trade (synchronously, before returning: calls made in some order are written in that order)
+    /// and completes once its line is fsynced. Throws <see cref="JournalWriteException"/> when the write failed.
+    /// Cancelling stops the wait only: the record may still be written.
+    /// </summary>
+    public ValueTask AppendTradeAsync(TradeInput trade, CancellationToken cancellationToken = default)
+    {
+        ArgumentNullException.ThrowIfNull(trade);
+        var done = new TaskCompletionSource(TaskCreationOptions.RunContinuationsAsynchronously);
+        if (!_queue.Writer.TryWrite(new Entry(trade, null, done)))
+        {
+            throw new ObjectDisposedException(nameof(TradeJournal));
+        }
+        return new ValueTask(cancellationToken.CanBeCanceled ? done.Task.WaitAsync(cancellationToken) : done.Task);
+    }
+
+    /// <summary>Queues a quote without waiting: it is written in order with the trades and on disk at the next fsync.</summary>
+    public void AppendQuote(BondQuote quote)
+    {
+        ArgumentNullException.ThrowIfNull(quote);
+        if (!_queue.Writer.TryWrite(new Entry(null, quote, null)))
+        {
+            throw new ObjectDisposedException(nameof(TradeJournal));
+        }
+    }
+
+    /// <summary>Writes what is queued, then closes the file.</summary>
+    public async ValueTask DisposeAsync()
+    {
+        _queue.Writer.TryComplete();
+        await _loop.ConfigureAwait(false);
+        CloseQuietly();
+    }
+
+    private async Task RunAsync()
+    {
+        var batch = new List<Entry>(_maxBatch);
+        var reader = _queue.Reader;
+        while (await reader.WaitToReadAsync().ConfigureAwait(false))
+        {
+            batch.Clear();
+            while (batch.Count < _maxBatch && reader.TryRead(out var entry))
+            {
+                batch.Add(entry);
+            }
+            WriteBatch(batch);
+        }
+    }
+
+    private void WriteBatch(List<Entry> batch)
+    {
+        var now = _time.GetUtcNow();
+        var path = JournalFiles.PathOf(_folder, JournalFiles.DayOf(now, _dayOffset));
+        var seq = _seq;
+        var written = 0L;
+        try
+        {
+            EnsureOpen(path);
+            seq = _seq;
+            var durable = false;
+            foreach (var entry in batch)
+            {
+                seq++;
+                var line = entry.Trade is { } trade ? JournalLine.Trade(seq, now, trade) : JournalLine.Quote(seq, now, entry.Quote!);
+                _stream!.Write(line);
+                written += line.Length;
+                durable |= entry.Done is not null;
+            }
+            _stream!.Flush(flushToDisk: durable);
+            Interlocked.Increment(ref _flushes);
+        }
+        catch (Exception ex) when (ex is IOException or UnauthorizedAccessException or NotSupportedException)
+        {
+            _needsRepair = true;
+            CloseQuietly();
+            var failure = new JournalWriteException(_path ?? path, ex.Message, ex);
+            _lastError = failure.Message;
+            foreach (var entry in batch)
+            {
+                entry.Done?.TrySetException(failure);
+            }
+            return;
+        }
+        _seq = seq;
+        _goodLength += written;
+        Interlocked.Add(ref _records, batch.Count);
+        _lastError = null;
+        foreach (var entry in batch)
+        {
+            entry.Done?.TrySetResult();
+        }
+    }
+
+    /// <summary>Opens the day file for appending: cuts back what a failed write left, and on first opening a file continues its sequence.</summary>
+    private void EnsureOpen(string path)
+    {
+        if (_stream is not null && !_needsRepair && string.Equals(path, _path, StringComparison.Ordinal))
+        {
+            return;
+        }
+        CloseQuietly();
+        if (_needsRepair && _path is not null && File.Exists(_path))
+        {
+            // The file of the failed write first (maybe yesterday's): no partial line may stay behind.
+            TruncateTo(_path, _goodLength);
+        }
+        if (!string.Equals(path, _path, StringComparison.Ordinal))
+        {
+            Directory.CreateDirectory(_folder);
+            var existing = JournalReplay.ReadFile(path);
+            if (existing.CompleteLength < LengthOf(path))
+            {
+                TruncateTo(path, existing.CompleteLength);
+                lock (_repairs)
+                {
+                    _repairs.AddRange(existing.Problems.Where(p => p.Kind == JournalProblemKind.TornTail));
+                }
+            }
+            _path = path;
+            _seq = existing.LastSeq;
+            _goodLength = existing.CompleteLength;
+        }
+        _stream = new FileStream(path, FileMode.Append, FileAccess.Write, FileShare.Read, bufferSize: 64 * 1024);
+        _needsRepair = false;
+    }
+
+    private static void TruncateTo(string path, long length)
+    {
+        using var stream = new FileStream(path, FileMode.Open, FileAccess.ReadWrite, FileShare.Read);
+        if (stream.Length > length)
+        {
+            stream.SetLength(length);
+            stream.Flush(flushToDisk: true);
+        }
+    }
+
+    /// <summary>Length of the file's content, following symbolic links; 0 when missing.</summary>
+    private static long LengthOf(string path)
+    {
+        if (!File.Exists(path))
+        {
+            return 0;
+        }
+        using var stream = new FileStream(path, FileMode.Open, FileAccess.Read, FileShare.ReadWrite);
+        return stream.Length;
+    }
+
+    private void CloseQuietly()
+    {
+        var stream = _stream;
+        _stream = null;
+        try
+        {
+            stream?.Dispose();
+        }
+        catch (IOException)
+        {
+            // Disposing flushes what a failed write left in the buffer; the repair cuts it off again.
+        }
+        catch (UnauthorizedAccessException)
+        {
+        }
+    }
+
+    private sealed record Entry(TradeInput? Trade, BondQuote? Quote, TaskCompletionSource? Done);
+}
