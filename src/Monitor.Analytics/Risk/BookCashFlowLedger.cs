@@ -1,4 +1,5 @@
 using System.Globalization;
+using System.Runtime.InteropServices;
 using Monitor.Analytics.Instruments;
 
 namespace Monitor.Analytics.Risk;
@@ -38,6 +39,9 @@ public sealed class BookCashFlowLedger
     public IReadOnlyList<string> CurveKeys =>
         _buckets.Where(b => b.Value.Amounts.Count > 0).Select(b => b.Key).Order(StringComparer.Ordinal).ToArray();
 
+    // Keys with a bucket (possibly empty), without sorting or allocating: for the batch pass.
+    internal IReadOnlyCollection<string> RawCurveKeys => _buckets.Keys;
+
     /// <summary>Total number of (curve key, date) entries.</summary>
     public int EntryCount => _buckets.Values.Sum(b => b.Amounts.Count);
 
@@ -75,7 +79,9 @@ public sealed class BookCashFlowLedger
                 continue;
             }
             var index = Dates.GetOrAdd(flow.Date);
-            bucket.Amounts.TryGetValue(index, out var old);
+            // One hash lookup per flow: a reference to the slot, added as 0 if new (removed again if it nets out).
+            ref var slot = ref CollectionsMarshal.GetValueRefOrAddDefault(bucket.Amounts, index, out _);
+            var old = slot;
             var updated = old + delta;
             var netsToZero = Math.Abs(updated) <= RelativeNettingTolerance * Math.Max(Math.Abs(old), Math.Abs(delta))
                 || Math.Abs(updated) < AbsoluteNettingTolerance;
@@ -85,7 +91,7 @@ public sealed class BookCashFlowLedger
             }
             else
             {
-                bucket.Amounts[index] = updated;
+                slot = updated;
             }
             bucket.Dirty = true;
         }

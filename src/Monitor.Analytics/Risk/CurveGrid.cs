@@ -17,7 +17,7 @@ namespace Monitor.Analytics.Risk;
 /// For example 10,000 dates, 10 keys, stride 28: 22 MB. Build cost: one set of loadings per date for the base curve, and one
 /// exp plus the spread loadings per date and key; keys are filled in parallel. Immutable once built: safe to
 /// read from many threads. The pure library uses <see cref="Parallel"/> here and in
-/// <see cref="BookRiskCalculator.ComputeAll"/>; it does no I/O.
+/// <see cref="BookRiskCalculator"/>; it does no I/O.
 /// </remarks>
 public sealed class CurveGrid
 {
