@@ -37,6 +37,10 @@ public static class BookRiskCalculator
     {
         ArgumentNullException.ThrowIfNull(ledger);
         ArgumentNullException.ThrowIfNull(grid);
+        if (grid.Depth != RiskDepth.Full)
+        {
+            throw new ArgumentException("This grid was built with RiskDepth.Durations (no convexities): use ComputeAll with RiskDepth.Durations or a full grid.", nameof(grid));
+        }
         var segment = ledger.GetSegment(curveKey);
         var rows = grid.RowsFor(segment.CurveKey);
         if (segment.Count > 0 && (segment.DateIndices[0] < 0 || segment.DateIndices[^1] >= grid.DateCount))
@@ -108,6 +112,7 @@ public static class BookRiskCalculator
     {
         ArgumentNullException.ThrowIfNull(ledgers);
         ArgumentNullException.ThrowIfNull(grid);
+        CheckDepth(grid, depth);
         var spreadFactors = grid.CurveKeys.Max(k => grid.RowsFor(k).SpreadFactorCount);
         var layout = new CommonMomentLayout(grid.BaseFactorCount, spreadFactors, depth);
         var n = ledgers.Count;
@@ -164,5 +169,13 @@ public static class BookRiskCalculator
             }
         });
         return output;
+    }
+
+    internal static void CheckDepth(CurveGrid grid, RiskDepth depth)
+    {
+        if (depth == RiskDepth.Full && grid.Depth != RiskDepth.Full)
+        {
+            throw new ArgumentException("Convexities asked of a grid built with RiskDepth.Durations.", nameof(depth));
+        }
     }
 }

@@ -23,8 +23,9 @@ public sealed class CurveGrid
 {
     private readonly Dictionary<string, GridRows> _rows;
 
-    private CurveGrid(DateOnly valuationDate, int dateCount, int baseFactorCount, Dictionary<string, GridRows> rows)
+    private CurveGrid(DateOnly valuationDate, int dateCount, int baseFactorCount, Dictionary<string, GridRows> rows, RiskDepth depth)
     {
+        Depth = depth;
         ValuationDate = valuationDate;
         DateCount = dateCount;
         BaseFactorCount = baseFactorCount;
@@ -40,6 +41,13 @@ public sealed class CurveGrid
     /// <summary>Number of base curve factors.</summary>
     public int BaseFactorCount { get; }
 
+    /// <summary>
+    /// <see cref="RiskDepth.Full"/> (from <see cref="Build(CashFlowDateIndex, DateOnly, IFactorCurve, IReadOnlyDictionary{string, IFactorCurve}?)"/>)
+    /// or <see cref="RiskDepth.Durations"/>: rows of [DF, t L_k DF] only, for the batch passes; such a grid has no convexities
+    /// and <see cref="BookRiskCalculator.Compute"/> refuses it.
+    /// </summary>
+    public RiskDepth Depth { get; }
+
     /// <summary>Curve keys the grid can price: <see cref="CurveKey.Government"/> and each spread group.</summary>
     public IReadOnlyCollection<string> CurveKeys => _rows.Keys;
 
@@ -48,15 +56,27 @@ public sealed class CurveGrid
     /// base + spread for each entry of <paramref name="spreadCurves"/> on all dates of <paramref name="dates"/>.
     /// </summary>
     public static CurveGrid Build(
-        CashFlowDateIndex dates, DateOnly valuationDate, IFactorCurve baseCurve, IReadOnlyDictionary<string, IFactorCurve>? spreadCurves = null)
+        CashFlowDateIndex dates, DateOnly valuationDate, IFactorCurve baseCurve, IReadOnlyDictionary<string, IFactorCurve>? spreadCurves = null) =>
+        Build(dates, valuationDate, baseCurve, spreadCurves, RiskDepth.Full);
+
+    /// <summary>
+    /// As the overload without <paramref name="depth"/>; <see cref="RiskDepth.Durations"/> writes only value and first
+    /// moments (8 doubles a row for NS + NS spread instead of 28): less to write per curve change and to read per book.
+    /// </summary>
+    public static CurveGrid Build(
+        CashFlowDateIndex dates, DateOnly valuationDate, IFactorCurve baseCurve, IReadOnlyDictionary<string, IFactorCurve>? spreadCurves, RiskDepth depth)
     {
+        if (!Enum.IsDefined(depth))
+        {
+            throw new ArgumentOutOfRangeException(nameof(depth), depth, "Unknown risk depth.");
+        }
         ArgumentNullException.ThrowIfNull(dates);
         ArgumentNullException.ThrowIfNull(baseCurve);
         var nb = PositionRisk.CheckedFactorCount(baseCurve, nameof(baseCurve));
         var count = dates.Count;
         var rows = new Dictionary<string, GridRows>(StringComparer.Ordinal)
         {
-            [CurveKey.Government] = new GridRows(nb, 0, count),
+            [CurveKey.Government] = new GridRows(nb, 0, count, depth),
         };
         var spreads = new List<(GridRows Rows, IFactorCurve? Curve)>();
         foreach (var (key, curve) in spreadCurves ?? new Dictionary<string, IFactorCurve>())
@@ -67,7 +87,7 @@ public sealed class CurveGrid
             }
             ArgumentNullException.ThrowIfNull(curve, $"{nameof(spreadCurves)}[{key}]");
             var ns = PositionRisk.CheckedFactorCount(curve, $"{nameof(spreadCurves)}[{key}]");
-            var keyRows = new GridRows(nb, ns, count);
+            var keyRows = new GridRows(nb, ns, count, depth);
             rows.Add(key, keyRows);
             spreads.Add((keyRows, curve));
         }
@@ -107,10 +127,17 @@ public sealed class CurveGrid
                     curve.Loadings(t, loadings[nb..n]);
                     z += curve.ZeroRate(t);
                 }
-                MomentLayout.FillUnitRow(t, Math.Exp(-z * t), loadings[..n], keyRows.Row(d));
+                if (depth == RiskDepth.Full)
+                {
+                    MomentLayout.FillUnitRow(t, Math.Exp(-z * t), loadings[..n], keyRows.Row(d));
+                }
+                else
+                {
+                    MomentLayout.FillUnitFirstMoments(t, Math.Exp(-z * t), loadings[..n], keyRows.Row(d));
+                }
             }
         });
-        return new CurveGrid(valuationDate, count, nb, rows);
+        return new CurveGrid(valuationDate, count, nb, rows, depth);
     }
 
     internal GridRows RowsFor(string curveKey) =>
@@ -122,11 +149,11 @@ public sealed class CurveGrid
     /// <summary>Unit-moment rows of one curve key, one row of <see cref="Stride"/> doubles per date index.</summary>
     internal sealed class GridRows
     {
-        public GridRows(int baseFactorCount, int spreadFactorCount, int dateCount)
+        public GridRows(int baseFactorCount, int spreadFactorCount, int dateCount, RiskDepth depth)
         {
             BaseFactorCount = baseFactorCount;
             SpreadFactorCount = spreadFactorCount;
-            Width = MomentLayout.Width(baseFactorCount + spreadFactorCount);
+            Width = depth == RiskDepth.Full ? MomentLayout.Width(baseFactorCount + spreadFactorCount) : 1 + baseFactorCount + spreadFactorCount;
             var lanes = Vector<double>.Count;
             Stride = (Width + lanes - 1) / lanes * lanes;
             Data = new double[Math.Max(1, dateCount) * Stride];

@@ -51,6 +51,7 @@ public sealed class InstrumentRiskRows
                 string.Create(CultureInfo.InvariantCulture,
                     $"Instrument date index {table.MaxDateIndex} is beyond the grid's {grid.DateCount} dates: rebuild the grid after registering instruments."));
         }
+        BookRiskCalculator.CheckDepth(grid, depth);
         var spreadFactors = grid.CurveKeys.Max(k => grid.RowsFor(k).SpreadFactorCount);
         var layout = new CommonMomentLayout(grid.BaseFactorCount, spreadFactors, depth);
         var count = table.Count;

@@ -94,13 +94,18 @@ public class HoldingsRiskPropertyTests
         var grid = CurveGrid.Build(w.Dates, RiskTestData.ValuationDate, w.BaseCurve, w.Spreads);
         var full = HoldingsRiskCalculator.ComputeAll(w.Books.Select(b => b.Holdings).ToList(),
             InstrumentRiskRows.Build(w.Table, grid, RiskDepth.Full, maxDegreeOfParallelism: 2), maxDegreeOfParallelism: 2);
+        // The durations pass on a full grid and on a durations-only grid.
         var light = HoldingsRiskCalculator.ComputeAll(w.Books.Select(b => b.Holdings).ToList(),
             InstrumentRiskRows.Build(w.Table, grid, RiskDepth.Durations));
+        var lightGrid = CurveGrid.Build(w.Dates, RiskTestData.ValuationDate, w.BaseCurve, w.Spreads, RiskDepth.Durations);
+        var lighter = HoldingsRiskCalculator.ComputeAll(w.Books.Select(b => b.Holdings).ToList(),
+            InstrumentRiskRows.Build(w.Table, lightGrid, RiskDepth.Durations));
         for (var b = 0; b < w.Books.Count; b++)
         {
             var (reference, gross) = Reference(w, w.Books[b].Trades);
             RiskAssert.Close(reference, full.ToExposures(b), gross);
             RiskAssert.FirstMomentsClose(reference, light, b, gross);
+            RiskAssert.FirstMomentsClose(reference, lighter, b, gross);
         }
     }
 
@@ -114,11 +119,14 @@ public class HoldingsRiskPropertyTests
         var ledgers = w.Books.Select(b => b.Ledger).ToList();
         var full = BookRiskCalculator.ComputeAll(ledgers, grid, RiskDepth.Full, maxDegreeOfParallelism: 2);
         var light = BookRiskCalculator.ComputeAll(ledgers, grid, RiskDepth.Durations);
+        var lighter = BookRiskCalculator.ComputeAll(
+            ledgers, CurveGrid.Build(w.Dates, RiskTestData.ValuationDate, w.BaseCurve, w.Spreads, RiskDepth.Durations), RiskDepth.Durations);
         for (var b = 0; b < w.Books.Count; b++)
         {
             var (reference, gross) = Reference(w, w.Books[b].Trades);
             RiskAssert.Close(reference, full.ToExposures(b), gross);
             RiskAssert.FirstMomentsClose(reference, light, b, gross);
+            RiskAssert.FirstMomentsClose(reference, lighter, b, gross);
             RiskAssert.Close(BookRiskCalculator.Compute(ledgers[b], grid).Total, full.ToExposures(b), gross);
         }
     }
@@ -134,6 +142,10 @@ public class HoldingsRiskPropertyTests
         Assert.Same(first, HoldingsRiskCalculator.ComputeAll(books, rows, first));
         Assert.Throws<InvalidOperationException>(() => first.ToExposures(0));
         Assert.Throws<ArgumentOutOfRangeException>(() => first.Value(books.Count));
+        // A durations-only grid has no convexities: the full paths refuse it.
+        var lightGrid = CurveGrid.Build(w.Dates, RiskTestData.ValuationDate, w.BaseCurve, w.Spreads, RiskDepth.Durations);
+        Assert.Throws<ArgumentException>(() => BookRiskCalculator.Compute(w.Books[0].Ledger, lightGrid));
+        Assert.Throws<ArgumentException>(() => InstrumentRiskRows.Build(w.Table, lightGrid, RiskDepth.Full));
     }
 
     [Fact]
