@@ -1,30 +1,28 @@
 using System.Globalization;
-using System.Runtime.InteropServices;
 
 namespace Monitor.Analytics.Risk;
 
 /// <summary>
 /// A book as quantities of instruments of an <see cref="InstrumentCashFlowTable"/>: quantity = face / 100 (negative
-/// for a short), so the book's flows are sum quantity x instrument flows per 100. Applying a trade is one hash update,
-/// whatever the instrument's number of flows.
+/// for a short), so the book's flows are sum quantity x instrument flows per 100. Applying a trade is one binary search
+/// (and, for an instrument new to the book, one array shift), whatever the instrument's number of flows.
 /// </summary>
 /// <remarks>
+/// Storage: two parallel arrays sorted by instrument number, always ready for the risk pass (no rebuild after trades).
 /// A quantity is dropped when it nets to at most 1e-9 of the larger of the old quantity and the change (float
-/// cancellation of an add then remove), like <see cref="BookCashFlowLedger"/>. The sorted arrays the risk pass reads
-/// are rebuilt lazily, once after a batch of trades. Not thread-safe: one writer; readers only while nobody writes.
+/// cancellation of an add then remove), like <see cref="BookCashFlowLedger"/>. Not thread-safe: one writer; readers
+/// only while nobody writes.
 /// </remarks>
 public sealed class BookHoldings
 {
     private const double RelativeNettingTolerance = 1e-9;
 
-    private readonly Dictionary<int, double> _quantities = [];
     private int[] _instruments = [];
-    private double[] _compactQuantities = [];
+    private double[] _quantities = [];
     private int _count;
-    private bool _dirty;
 
     /// <summary>Number of instruments held (nonzero quantity).</summary>
-    public int Count => _quantities.Count;
+    public int Count => _count;
 
     /// <summary>Adds <paramref name="quantity"/> (face / 100; negative sells) of instrument <paramref name="instrument"/>.</summary>
     public void Add(int instrument, double quantity)
@@ -41,55 +39,50 @@ public sealed class BookHoldings
         {
             return;
         }
-        ref var slot = ref CollectionsMarshal.GetValueRefOrAddDefault(_quantities, instrument, out _);
-        var old = slot;
-        var updated = old + quantity;
-        if (Math.Abs(updated) <= RelativeNettingTolerance * Math.Max(Math.Abs(old), Math.Abs(quantity)))
+        var at = Array.BinarySearch(_instruments, 0, _count, instrument);
+        if (at >= 0)
         {
-            _quantities.Remove(instrument);
+            var old = _quantities[at];
+            var updated = old + quantity;
+            if (Math.Abs(updated) <= RelativeNettingTolerance * Math.Max(Math.Abs(old), Math.Abs(quantity)))
+            {
+                Array.Copy(_instruments, at + 1, _instruments, at, _count - at - 1);
+                Array.Copy(_quantities, at + 1, _quantities, at, _count - at - 1);
+                _count--;
+            }
+            else
+            {
+                _quantities[at] = updated;
+            }
+            return;
         }
-        else
+        at = ~at;
+        if (_count == _instruments.Length)
         {
-            slot = updated;
+            var capacity = Math.Max(8, _count * 2);
+            Array.Resize(ref _instruments, capacity);
+            Array.Resize(ref _quantities, capacity);
         }
-        _dirty = true;
+        Array.Copy(_instruments, at, _instruments, at + 1, _count - at);
+        Array.Copy(_quantities, at, _quantities, at + 1, _count - at);
+        _instruments[at] = instrument;
+        _quantities[at] = quantity;
+        _count++;
     }
 
     /// <summary>Removes what <see cref="Add"/> with the same arguments added.</summary>
     public void Remove(int instrument, double quantity) => Add(instrument, -quantity);
 
     /// <summary>Quantity held of <paramref name="instrument"/> (0 if none).</summary>
-    public double QuantityOf(int instrument) => _quantities.GetValueOrDefault(instrument);
-
-    /// <summary>Builds the sorted arrays now (the risk pass does it itself; call before sharing between threads).</summary>
-    public void Compact()
+    public double QuantityOf(int instrument)
     {
-        if (!_dirty)
-        {
-            return;
-        }
-        var n = _quantities.Count;
-        if (_instruments.Length < n)
-        {
-            var capacity = Math.Max(n, _instruments.Length * 3 / 2);
-            _instruments = new int[capacity];
-            _compactQuantities = new double[capacity];
-        }
-        var i = 0;
-        foreach (var (instrument, quantity) in _quantities)
-        {
-            _instruments[i] = instrument;
-            _compactQuantities[i] = quantity;
-            i++;
-        }
-        Array.Sort(_instruments, _compactQuantities, 0, n);
-        _count = n;
-        _dirty = false;
+        var at = Array.BinarySearch(_instruments, 0, _count, instrument);
+        return at >= 0 ? _quantities[at] : 0.0;
     }
 
     internal ReadOnlySpan<int> Instruments => _instruments.AsSpan(0, _count);
 
-    internal ReadOnlySpan<double> Quantities => _compactQuantities.AsSpan(0, _count);
+    internal ReadOnlySpan<double> Quantities => _quantities.AsSpan(0, _count);
 
     internal void CheckAgainst(int instrumentCount)
     {

@@ -13,8 +13,8 @@ namespace Monitor.Analytics.Risk;
 public static class HoldingsRiskCalculator
 {
     /// <summary>
-    /// Exposures of every book of <paramref name="books"/> (row b of the result is books[b]). Compacts changed books
-    /// first (on the calling thread); the books must not change during the call.
+    /// Exposures of every book of <paramref name="books"/> (row b of the result is books[b]). The books must not
+    /// change during the call.
     /// </summary>
     /// <param name="books">Holdings of instruments of the table the rows were built from.</param>
     /// <param name="rows">Instrument rows on the current curves.</param>
@@ -33,7 +33,6 @@ public static class HoldingsRiskCalculator
         for (var b = 0; b < n; b++)
         {
             var book = books[b] ?? throw new ArgumentException($"books[{b}] is null.", nameof(books));
-            book.Compact();
             book.CheckAgainst(rows.Count);
         }
         var vectors = rows.Stride / Vector<double>.Count;

@@ -177,4 +177,32 @@ public class HoldingsRiskPropertyTests
         var table = new InstrumentCashFlowTable(new CashFlowDateIndex());
         Assert.Throws<ArgumentException>(() => table.Register(null, [new CashFlow(RiskTestData.ValuationDate, double.NaN)]));
     }
+
+    [Property(MaxTest = 40)]
+    public void A_ledger_read_after_every_trade_equals_one_read_once_at_the_end(int seed)
+    {
+        // The compact view is patched in place for trades on known dates; it must equal a rebuild from scratch
+        // (no source needed: two storages of the same sums). Equal exactly: each amount is the same float sum.
+        var rng = new Random(seed);
+        var dates = new CashFlowDateIndex();
+        var eager = new BookCashFlowLedger(dates);
+        var lazy = new BookCashFlowLedger(dates);
+        var bonds = Enumerable.Range(0, 4).Select(_ => RiskTestData.RandomBond(rng)).ToArray();
+        for (var t = 0; t < 30; t++)
+        {
+            var key = Keys[rng.Next(Keys.Length)];
+            var flows = bonds[rng.Next(bonds.Length)];
+            var scale = rng.Next(-5, 6) * 100.0;
+            eager.Add(key, flows, scale);
+            lazy.Add(key, flows, scale);
+            _ = eager.GetSegment(key);
+        }
+        foreach (var key in lazy.CurveKeys)
+        {
+            var a = eager.GetSegment(key);
+            var b = lazy.GetSegment(key);
+            Assert.Equal(b.DateIndices.ToArray(), a.DateIndices.ToArray());
+            Assert.Equal(b.Amounts.ToArray(), a.Amounts.ToArray());
+        }
+    }
 }
