@@ -63,8 +63,23 @@ internal static class QLNetMarket
         return [x[0], x[1], x[2], x[3]];
     }
 
-    /// <summary>QLNet NS parameters (kappa = 1/tau) as our curve.</summary>
-    public static NelsonSiegelCurve AsCurve(double[] x) => new(x[0], x[1], x[2], 1.0 / x[3]);
+    /// <summary>QLNet NS parameters as a zero curve, QLNet's own formula (any kappa, even one our curve class refuses).</summary>
+    public static IZeroCurve AsCurve(double[] x) => new QLNetNelsonSiegel(x);
+
+    private sealed class QLNetNelsonSiegel(double[] x) : IZeroCurve
+    {
+        // z(t) = x0 + (x1 + x2) (1 - e^{-k t}) / (k t) - x2 e^{-k t}, k = x3 (QLNet NelsonSiegelFitting.discountFunction).
+        public double ZeroRate(double t)
+        {
+            var k = x[3];
+            var e = Math.Exp(-k * t);
+            return x[0] + (x[1] + x[2]) * (1 - e) / (k * t) - x[2] * e;
+        }
+
+        public double Discount(double t) => Math.Exp(-ZeroRate(t) * t);
+
+        public double InstantaneousForward(double t) => throw new NotSupportedException();
+    }
 
     public static QL.FixedRateBond Bond(SyntheticBond b) =>
         new(0, 100.0, Schedule(b), [b.Coupon], Icma(), QL.BusinessDayConvention.Unadjusted, 100.0, ToQl(b.Issue),
