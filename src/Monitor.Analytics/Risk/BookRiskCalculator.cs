@@ -37,6 +37,7 @@ public static class BookRiskCalculator
     {
         ArgumentNullException.ThrowIfNull(ledger);
         ArgumentNullException.ThrowIfNull(grid);
+        CheckCoversAllDates(grid);
         if (grid.Depth != RiskDepth.Full)
         {
             throw new ArgumentException("This grid was built with RiskDepth.Durations (no convexities): use ComputeAll with RiskDepth.Durations or a full grid.", nameof(grid));
@@ -113,6 +114,7 @@ public static class BookRiskCalculator
         ArgumentNullException.ThrowIfNull(ledgers);
         ArgumentNullException.ThrowIfNull(grid);
         CheckDepth(grid, depth);
+        CheckCoversAllDates(grid);
         var spreadFactors = grid.CurveKeys.Max(k => grid.RowsFor(k).SpreadFactorCount);
         var layout = new CommonMomentLayout(grid.BaseFactorCount, spreadFactors, depth);
         var n = ledgers.Count;
@@ -169,6 +171,14 @@ public static class BookRiskCalculator
             }
         });
         return output;
+    }
+
+    internal static void CheckCoversAllDates(CurveGrid grid)
+    {
+        if (!grid.CoversAllDates)
+        {
+            throw new ArgumentException("This grid was built for instruments only (CurveGrid.BuildForInstruments): it cannot price date-merged ledgers.", nameof(grid));
+        }
     }
 
     internal static void CheckDepth(CurveGrid grid, RiskDepth depth)

@@ -24,6 +24,8 @@ public sealed class InstrumentCashFlowTable
     private readonly List<int> _dateIndices = [];
     private readonly List<double> _amounts = [];
     private readonly List<string> _curveKeys = [];
+    private Dictionary<string, bool[]>? _used;
+    private int _usedCount = -1;
 
     /// <summary>A table whose dates are numbered in <paramref name="dates"/>.</summary>
     public InstrumentCashFlowTable(CashFlowDateIndex dates)
@@ -96,6 +98,30 @@ public sealed class InstrumentCashFlowTable
     internal ReadOnlySpan<double> Amounts => CollectionsMarshal.AsSpan(_amounts);
 
     internal IReadOnlyList<string> CurveKeys => _curveKeys;
+
+    // Per curve key, which date indices its instruments use (cached until the next Register); null if the key has none.
+    internal bool[]? UsedDates(string curveKey)
+    {
+        if (_used is null || _usedCount != _curveKeys.Count)
+        {
+            var used = new Dictionary<string, bool[]>(StringComparer.Ordinal);
+            for (var i = 0; i < _curveKeys.Count; i++)
+            {
+                if (!used.TryGetValue(_curveKeys[i], out var mask))
+                {
+                    mask = new bool[MaxDateIndex + 1];
+                    used.Add(_curveKeys[i], mask);
+                }
+                for (var p = _start[i]; p < _start[i + 1]; p++)
+                {
+                    mask[_dateIndices[p]] = true;
+                }
+            }
+            _used = used;
+            _usedCount = _curveKeys.Count;
+        }
+        return _used.GetValueOrDefault(curveKey);
+    }
 
     private int Check(int instrument) =>
         (uint)instrument < (uint)_curveKeys.Count

@@ -100,10 +100,15 @@ public class HoldingsRiskPropertyTests
         var lightGrid = CurveGrid.Build(w.Dates, RiskTestData.ValuationDate, w.BaseCurve, w.Spreads, RiskDepth.Durations);
         var lighter = HoldingsRiskCalculator.ComputeAll(w.Books.Select(b => b.Holdings).ToList(),
             InstrumentRiskRows.Build(w.Table, lightGrid, RiskDepth.Durations));
+        // And on a grid evaluated only where instruments have flows (spread zero rate taken from its loadings).
+        var onlyUsed = CurveGrid.BuildForInstruments(w.Table, RiskTestData.ValuationDate, w.BaseCurve, w.Spreads, RiskDepth.Full);
+        var sparse = HoldingsRiskCalculator.ComputeAll(w.Books.Select(b => b.Holdings).ToList(),
+            InstrumentRiskRows.Build(w.Table, onlyUsed, RiskDepth.Full));
         for (var b = 0; b < w.Books.Count; b++)
         {
             var (reference, gross) = Reference(w, w.Books[b].Trades);
             RiskAssert.Close(reference, full.ToExposures(b), gross);
+            RiskAssert.Close(reference, sparse.ToExposures(b), gross);
             RiskAssert.FirstMomentsClose(reference, light, b, gross);
             RiskAssert.FirstMomentsClose(reference, lighter, b, gross);
         }
@@ -121,10 +126,15 @@ public class HoldingsRiskPropertyTests
         var light = BookRiskCalculator.ComputeAll(ledgers, grid, RiskDepth.Durations);
         var lighter = BookRiskCalculator.ComputeAll(
             ledgers, CurveGrid.Build(w.Dates, RiskTestData.ValuationDate, w.BaseCurve, w.Spreads, RiskDepth.Durations), RiskDepth.Durations);
+        // And on a grid evaluated only where instruments have flows (spread zero rate taken from its loadings).
+        var onlyUsed = CurveGrid.BuildForInstruments(w.Table, RiskTestData.ValuationDate, w.BaseCurve, w.Spreads, RiskDepth.Full);
+        var sparse = HoldingsRiskCalculator.ComputeAll(w.Books.Select(b => b.Holdings).ToList(),
+            InstrumentRiskRows.Build(w.Table, onlyUsed, RiskDepth.Full));
         for (var b = 0; b < w.Books.Count; b++)
         {
             var (reference, gross) = Reference(w, w.Books[b].Trades);
             RiskAssert.Close(reference, full.ToExposures(b), gross);
+            RiskAssert.Close(reference, sparse.ToExposures(b), gross);
             RiskAssert.FirstMomentsClose(reference, light, b, gross);
             RiskAssert.FirstMomentsClose(reference, lighter, b, gross);
             RiskAssert.Close(BookRiskCalculator.Compute(ledgers[b], grid).Total, full.ToExposures(b), gross);
@@ -146,6 +156,10 @@ public class HoldingsRiskPropertyTests
         var lightGrid = CurveGrid.Build(w.Dates, RiskTestData.ValuationDate, w.BaseCurve, w.Spreads, RiskDepth.Durations);
         Assert.Throws<ArgumentException>(() => BookRiskCalculator.Compute(w.Books[0].Ledger, lightGrid));
         Assert.Throws<ArgumentException>(() => InstrumentRiskRows.Build(w.Table, lightGrid, RiskDepth.Full));
+        // A grid evaluated only where instruments have flows cannot price date-merged ledgers.
+        var onlyUsed = CurveGrid.BuildForInstruments(w.Table, RiskTestData.ValuationDate, w.BaseCurve, w.Spreads, RiskDepth.Full);
+        Assert.False(onlyUsed.CoversAllDates);
+        Assert.Throws<ArgumentException>(() => BookRiskCalculator.ComputeAll([w.Books[0].Ledger], onlyUsed, RiskDepth.Durations));
     }
 
     [Fact]
