@@ -23,7 +23,7 @@ internal static class MemoryReport
         }
         else
         {
-            var rows = InstrumentRiskRows.Build(world.Table, world.Grid(0, RiskDepth.Durations), RiskDepth.Durations);
+            var rows = InstrumentRiskRows.Build(world.Table, world.InstrumentGrid(0), RiskDepth.Durations);
             keep = HoldingsRiskCalculator.ComputeAll(world.Holdings, rows);
         }
         var positionsBytes = (long)world.Positions.Length * 24;

@@ -26,7 +26,7 @@ public class RevalueBenchmarks
     {
         _world = new RiskWorld(1_000, Positions, withLedgers: true);
         _plain = new double[1_000 * PlainPositionLoop.Width];
-        _rows = InstrumentRiskRows.Build(_world.Table, _world.Grid(0, RiskDepth.Durations), RiskDepth.Durations);
+        _rows = InstrumentRiskRows.Build(_world.Table, _world.InstrumentGrid(0), RiskDepth.Durations);
         _ = BookRiskCalculator.ComputeAll(_world.Ledgers, _world.Grid(0, RiskDepth.Durations), RiskDepth.Durations);
         var entries = _world.Ledgers.Sum(l => l.EntryCount);
         var holdings = _world.Holdings.Sum(h => h.Count);
@@ -71,7 +71,7 @@ public class RevalueBenchmarks
 
     private double Holdings(int cores)
     {
-        var grid = _world.Grid(++_turn, RiskDepth.Durations);
+        var grid = _world.InstrumentGrid(++_turn);
         var rows = InstrumentRiskRows.Build(_world.Table, grid, RiskDepth.Durations, cores);
         _matrix = HoldingsRiskCalculator.ComputeAll(_world.Holdings, rows, _matrix, cores);
         return _matrix.Value(0);
@@ -103,7 +103,7 @@ public class BookScalingBenchmarks
     [Benchmark(Description = "ours: grid + instrument rows + holdings, 2 cores")]
     public double OursHoldings()
     {
-        var grid = _world.Grid(++_turn, RiskDepth.Durations);
+        var grid = _world.InstrumentGrid(++_turn);
         var rows = InstrumentRiskRows.Build(_world.Table, grid, RiskDepth.Durations, 2);
         _matrix = HoldingsRiskCalculator.ComputeAll(_world.Holdings, rows, _matrix, 2);
         return _matrix.Value(0);
@@ -145,7 +145,7 @@ public class UniverseScalingBenchmarks
     public double OursHoldings()
     {
         var curve = new Monitor.Analytics.Curves.NelsonSiegelCurve(0.04 + (++_turn & 1) * 1e-4, -0.01, 0.01, 2.0);
-        var grid = CurveGrid.Build(_dates, SyntheticMarket.ValuationDate, curve, null, RiskDepth.Durations);
+        var grid = CurveGrid.BuildForInstruments(_table, SyntheticMarket.ValuationDate, curve, null, RiskDepth.Durations);
         var rows = InstrumentRiskRows.Build(_table, grid, RiskDepth.Durations, 2);
         _matrix = HoldingsRiskCalculator.ComputeAll(_books, rows, _matrix, 2);
         return _matrix.Value(0);

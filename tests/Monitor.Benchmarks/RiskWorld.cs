@@ -62,4 +62,8 @@ internal sealed class RiskWorld
 
     public CurveGrid Grid(int turn, RiskDepth depth) =>
         CurveGrid.Build(Dates, SyntheticMarket.ValuationDate, BaseCurves[turn & 1], Spreads, depth);
+
+    /// <summary>The grid the holdings path needs: only (key, date) pairs some instrument uses.</summary>
+    public CurveGrid InstrumentGrid(int turn) =>
+        CurveGrid.BuildForInstruments(Table, SyntheticMarket.ValuationDate, BaseCurves[turn & 1], Spreads, RiskDepth.Durations);
 }
