@@ -1,4 +1,5 @@
 using System.Globalization;
+using System.Runtime.InteropServices;
 using Monitor.Analytics.Instruments;
 
 namespace Monitor.Analytics.Risk;
@@ -12,8 +13,9 @@ namespace Monitor.Analytics.Risk;
 /// <para>Storage: per curve key a dictionary from date index to net amount, so <see cref="Add"/> and
 /// <see cref="Remove"/> cost O(number of the bond's flows) whatever the book's size (a sorted array would
 /// need an O(book dates) shift for each new date). The compact sorted arrays the risk loop reads
-/// (<see cref="GetSegment"/>) are rebuilt lazily, once after a batch of trades, not per trade; ascending date
-/// order keeps the sums independent of dictionary history.</para>
+/// (<see cref="GetSegment"/>) are updated in place when a trade only changes amounts on dates the book already has
+/// (binary search per flow), and otherwise rebuilt lazily, once after a batch of trades; ascending date order keeps
+/// the sums independent of dictionary history.</para>
 /// <para>Netting: a date is dropped when its net amount is at most 1e-9 of the larger of the old amount and
 /// the change (float cancellation of an add then remove), or below 1e-6 money in absolute terms.</para>
 /// <para>Not thread-safe: one writer; readers (risk) only while nobody writes.</para>
@@ -37,6 +39,9 @@ public sealed class BookCashFlowLedger
     /// <summary>Curve keys that hold at least one date, in ordinal order.</summary>
     public IReadOnlyList<string> CurveKeys =>
         _buckets.Where(b => b.Value.Amounts.Count > 0).Select(b => b.Key).Order(StringComparer.Ordinal).ToArray();
+
+    // Keys with a bucket (possibly empty), without sorting or allocating: for the batch pass.
+    internal IReadOnlyCollection<string> RawCurveKeys => _buckets.Keys;
 
     /// <summary>Total number of (curve key, date) entries.</summary>
     public int EntryCount => _buckets.Values.Sum(b => b.Amounts.Count);
@@ -75,19 +80,22 @@ public sealed class BookCashFlowLedger
                 continue;
             }
             var index = Dates.GetOrAdd(flow.Date);
-            bucket.Amounts.TryGetValue(index, out var old);
+            // One hash lookup per flow: a reference to the slot, added as 0 if new (removed again if it nets out).
+            ref var slot = ref CollectionsMarshal.GetValueRefOrAddDefault(bucket.Amounts, index, out _);
+            var old = slot;
             var updated = old + delta;
             var netsToZero = Math.Abs(updated) <= RelativeNettingTolerance * Math.Max(Math.Abs(old), Math.Abs(delta))
                 || Math.Abs(updated) < AbsoluteNettingTolerance;
             if (netsToZero)
             {
                 bucket.Amounts.Remove(index);
+                bucket.Dirty = true;
             }
             else
             {
-                bucket.Amounts[index] = updated;
+                slot = updated;
+                bucket.UpdateCompact(index, updated);
             }
-            bucket.Dirty = true;
         }
     }
 
@@ -139,6 +147,25 @@ public sealed class BookCashFlowLedger
         public int Count { get; private set; }
 
         public bool Dirty { get; set; }
+
+        // Keeps the compact view valid when the date is already in it (the usual trade: a bond the book holds, or one
+        // sharing its coupon dates): a binary search instead of a re-sort of the whole bucket at the next risk pass.
+        public void UpdateCompact(int index, double amount)
+        {
+            if (Dirty)
+            {
+                return;
+            }
+            var at = Array.BinarySearch(DateIndices, 0, Count, index);
+            if (at >= 0)
+            {
+                CompactAmounts[at] = amount;
+            }
+            else
+            {
+                Dirty = true;
+            }
+        }
 
         public void Compact()
         {

@@ -37,6 +37,11 @@ public static class BookRiskCalculator
     {
         ArgumentNullException.ThrowIfNull(ledger);
         ArgumentNullException.ThrowIfNull(grid);
+        CheckCoversAllDates(grid);
+        if (grid.Depth != RiskDepth.Full)
+        {
+            throw new ArgumentException("This grid was built with RiskDepth.Durations (no convexities): use ComputeAll with RiskDepth.Durations or a full grid.", nameof(grid));
+        }
         var segment = ledger.GetSegment(curveKey);
         var rows = grid.RowsFor(segment.CurveKey);
         if (segment.Count > 0 && (segment.DateIndices[0] < 0 || segment.DateIndices[^1] >= grid.DateCount))
@@ -46,7 +51,7 @@ public static class BookRiskCalculator
                     $"Ledger date index {segment.DateIndices[^1]} is beyond the grid's {grid.DateCount} dates: rebuild the grid after adding trades."));
         }
         Span<double> acc = stackalloc double[rows.Stride];
-        Accumulate(segment.DateIndices, segment.Amounts, rows.Data, rows.Stride, acc);
+        RowAccumulator.Accumulate(segment.DateIndices, segment.Amounts, rows.Data, rows.Stride, rows.Stride / Vector<double>.Count, acc);
         return new FactorExposures(rows.BaseFactorCount, rows.SpreadFactorCount, acc[..rows.Width]);
     }
 
@@ -98,56 +103,89 @@ public static class BookRiskCalculator
         return results;
     }
 
-    // acc[m] += amount_i * row(date_i)[m] over all entries; rows and acc are padded to whole SIMD vectors.
-    // Columns go in chunks of up to four vectors held in registers (one pass over the ledger per chunk): keeping the
-    // accumulators out of memory is what makes this loop fast. Indices were checked against the grid by the caller
-    // (ascending, the last below DateCount), so the loads skip bounds checks.
-    private static void Accumulate(ReadOnlySpan<int> dateIndices, ReadOnlySpan<double> amounts, double[] data, int stride, Span<double> acc)
+    /// <summary>
+    /// Whole-book exposures of many date-merged ledgers into one <see cref="BookRiskMatrix"/> (no per-book objects),
+    /// reading only the columns <paramref name="depth"/> needs: for <see cref="RiskDepth.Durations"/> the first
+    /// 8 of a row's 28 doubles (NS + NS spread). Same sums as <see cref="Compute"/>, spread groups summed factor by factor.
+    /// </summary>
+    public static BookRiskMatrix ComputeAll(
+        IReadOnlyList<BookCashFlowLedger> ledgers, CurveGrid grid, RiskDepth depth, BookRiskMatrix? output = null, int maxDegreeOfParallelism = -1)
     {
-        var lanes = Vector<double>.Count;
-        var vectors = stride / lanes;
-        ref var rows = ref MemoryMarshal.GetArrayDataReference(data);
-        ref var index0 = ref MemoryMarshal.GetReference(dateIndices);
-        ref var amount0 = ref MemoryMarshal.GetReference(amounts);
-        var count = dateIndices.Length;
-        for (var first = 0; first < vectors; first += 4)
+        ArgumentNullException.ThrowIfNull(ledgers);
+        ArgumentNullException.ThrowIfNull(grid);
+        CheckDepth(grid, depth);
+        CheckCoversAllDates(grid);
+        var spreadFactors = grid.CurveKeys.Max(k => grid.RowsFor(k).SpreadFactorCount);
+        var layout = new CommonMomentLayout(grid.BaseFactorCount, spreadFactors, depth);
+        var n = ledgers.Count;
+        if (output is null || !output.Fits(n, layout))
         {
-            var width = Math.Min(4, vectors - first);
-            var column = (nuint)(first * lanes);
-            var n = (nuint)lanes;
-            Vector<double> a0 = default, a1 = default, a2 = default, a3 = default;
-            for (var i = 0; i < count; i++)
+            output = new BookRiskMatrix(n, grid.BaseFactorCount, spreadFactors, depth);
+        }
+        var sources = new Dictionary<string, (CurveGrid.GridRows Rows, int[] Map, int Vectors)>(StringComparer.Ordinal);
+        var segments = new LedgerSegment[n][];
+        for (var b = 0; b < n; b++)
+        {
+            var ledger = ledgers[b] ?? throw new ArgumentException($"ledgers[{b}] is null.", nameof(ledgers));
+            var keys = ledger.RawCurveKeys;
+            var list = new LedgerSegment[keys.Count];
+            var i = 0;
+            foreach (var key in keys)
             {
-                var a = new Vector<double>(Unsafe.Add(ref amount0, i));
-                var offset = (nuint)Unsafe.Add(ref index0, i) * (nuint)stride + column;
-                a0 += a * Vector.LoadUnsafe(ref rows, offset);
-                if (width > 1)
+                var segment = ledger.GetSegment(key); // compacts on this thread
+                if (segment.Count > 0 && segment.DateIndices[^1] >= grid.DateCount)
                 {
-                    a1 += a * Vector.LoadUnsafe(ref rows, offset + n);
+                    throw new InvalidOperationException(
+                        string.Create(CultureInfo.InvariantCulture,
+                            $"Ledger date index {segment.DateIndices[^1]} is beyond the grid's {grid.DateCount} dates: rebuild the grid after adding trades."));
                 }
-                if (width > 2)
+                if (!sources.ContainsKey(key))
                 {
-                    a2 += a * Vector.LoadUnsafe(ref rows, offset + 2 * n);
+                    var rows = grid.RowsFor(key);
+                    var map = layout.MapFrom(rows.BaseFactorCount + rows.SpreadFactorCount);
+                    sources.Add(key, (rows, map, (map.Length + Vector<double>.Count - 1) / Vector<double>.Count));
                 }
-                if (width > 3)
+                list[i++] = segment;
+            }
+            segments[b] = list;
+        }
+        var result = output;
+        var options = new ParallelOptions { MaxDegreeOfParallelism = maxDegreeOfParallelism };
+        var chunk = Math.Max(1, n / (8 * Environment.ProcessorCount));
+        Parallel.ForEach(System.Collections.Concurrent.Partitioner.Create(0, n, chunk), options, range =>
+        {
+            Span<double> acc = stackalloc double[InstrumentRiskRows.MaxGridStride];
+            for (var b = range.Item1; b < range.Item2; b++)
+            {
+                var target = result.Row(b);
+                target.Clear();
+                foreach (var segment in segments[b])
                 {
-                    a3 += a * Vector.LoadUnsafe(ref rows, offset + 3 * n);
+                    var (rows, map, vectors) = sources[segment.CurveKey];
+                    RowAccumulator.Accumulate(segment.DateIndices, segment.Amounts, rows.Data, rows.Stride, vectors, acc);
+                    for (var c = 0; c < map.Length; c++)
+                    {
+                        target[map[c]] += acc[c];
+                    }
                 }
             }
-            var target = acc[(first * lanes)..];
-            a0.CopyTo(target);
-            if (width > 1)
-            {
-                a1.CopyTo(target[lanes..]);
-            }
-            if (width > 2)
-            {
-                a2.CopyTo(target[(2 * lanes)..]);
-            }
-            if (width > 3)
-            {
-                a3.CopyTo(target[(3 * lanes)..]);
-            }
+        });
+        return output;
+    }
+
+    internal static void CheckCoversAllDates(CurveGrid grid)
+    {
+        if (!grid.CoversAllDates)
+        {
+            throw new ArgumentException("This grid was built for instruments only (CurveGrid.BuildForInstruments): it cannot price date-merged ledgers.", nameof(grid));
+        }
+    }
+
+    internal static void CheckDepth(CurveGrid grid, RiskDepth depth)
+    {
+        if (depth == RiskDepth.Full && grid.Depth != RiskDepth.Full)
+        {
+            throw new ArgumentException("Convexities asked of a grid built with RiskDepth.Durations.", nameof(depth));
         }
     }
 }

@@ -33,6 +33,17 @@ internal static class MomentLayout
         }
     }
 
+    /// <summary>Writes only [DF, t L_k DF] of a unit cash flow (the first 1 + n entries of the row).</summary>
+    public static void FillUnitFirstMoments(double t, double df, ReadOnlySpan<double> loadings, Span<double> row)
+    {
+        row[0] = df;
+        var tdf = t * df;
+        for (var k = 0; k < loadings.Length; k++)
+        {
+            row[1 + k] = tdf * loadings[k];
+        }
+    }
+
     /// <summary>Adds amount times the unit row of a cash flow to <paramref name="row"/>.</summary>
     public static void AddCashFlow(double amount, double t, double df, ReadOnlySpan<double> loadings, Span<double> row)
     {
