@@ -8,11 +8,12 @@ namespace Monitor.Analytics.Tests.Fitting;
 /// <summary>
 /// Property (self-consistency, no external source): for any Nelson-Siegel curve in a realistic range (level 1-8%,
 /// slope -4..+2%, curvature -4..+4%, decay 0.5-8 years) and any seeded set of 30 bonds priced exactly on it, the cold-start
-/// fit reprices the bonds to RMSE &lt; 0.01 bp and reproduces the zero curve from 6 months to 30 years within 0.01 bp.
-/// Decays below 0.5 years are left out on purpose: the hump then peaks (x = 1.79) inside the first coupon period, and
-/// with bonds from 6 months on the slope and curvature loadings are almost collinear over the data, so the curve is
-/// only identified to ~0.1 bp at the short end (this property found it: replay 4599161876222983936,4682725859299919283
-/// with decay 0.30 gave prices to 3e-5 bp but a 6-month zero 0.07 bp off).
+/// fit reprices the bonds to RMSE &lt; 0.01 bp and reproduces the zero curve from 2 to 30 years within 0.01 bp, and
+/// from 6 months to 2 years within 1 bp. The short end is looser on purpose: with a short decay and a small curvature
+/// the slope and curvature loadings are almost collinear over bonds that start at 6 months, so prices fix the curve
+/// there only to a fraction of a bp (this property found it: replay 8928426347231363508,8432000847867383849, decay
+/// 0.61 and curvature -0.5%, repriced to 3e-4 bp with a 6-month zero 0.8 bp off). Decays start at 0.5 years for the
+/// same reason: below it the hump peaks inside the first coupon period.
 /// </summary>
 public class RecoveryPropertyTests
 {
@@ -32,7 +33,8 @@ public class RecoveryPropertyTests
         }
         for (var t = 0.5; t <= 30; t += 0.5)
         {
-            if (Math.Abs(fit.Curve.ZeroRate(t) - truth.ZeroRate(t)) * 1e4 > 0.01)
+            var bound = t < 2 ? 1.0 : 0.01;
+            if (Math.Abs(fit.Curve.ZeroRate(t) - truth.ZeroRate(t)) * 1e4 > bound)
             {
                 return false;
             }
