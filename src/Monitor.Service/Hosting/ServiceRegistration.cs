@@ -4,6 +4,7 @@ using Microsoft.Extensions.DependencyInjection;
 using Microsoft.Extensions.Options;
 using Monitor.Service.Audit;
 using Monitor.Service.Engine;
+using Monitor.Service.Journal;
 using Monitor.Service.Pipeline;
 using Monitor.Service.Telemetry;
 
@@ -34,7 +35,21 @@ public static class ServiceRegistration
 
         services.AddMetrics();
         services.AddSingleton<MonitorMetrics>();
-        services.AddSingleton(sp => EngineFactory.Create(sp.GetRequiredService<IOptions<MonitorOptions>>().Value, sp.GetRequiredService<TimeProvider>()));
+        // The trade journal sits beside the exposure log unless Journal:Folder names another place.
+        services.AddOptions<JournalOptions>().Bind(configuration.GetSection(JournalOptions.SectionName))
+            .PostConfigure<IOptions<ExposureLogOptions>>((journal, log) =>
+            {
+                if (string.IsNullOrWhiteSpace(journal.Folder))
+                {
+                    journal.Folder = log.Value.Folder.TrimEnd('/', '\\') + "-journal";
+                }
+            });
+        services.AddSingleton(sp => EngineRecovery.Start(
+            EngineFactory.Create(sp.GetRequiredService<IOptions<MonitorOptions>>().Value, sp.GetRequiredService<TimeProvider>()),
+            sp.GetRequiredService<IOptions<JournalOptions>>().Value,
+            sp.GetRequiredService<TimeProvider>().GetUtcNow()));
+        services.AddSingleton(sp => sp.GetRequiredService<EngineRecovery>().Engine);
+        services.AddSingleton(sp => new TradeJournal(sp.GetRequiredService<IOptions<JournalOptions>>().Value, sp.GetRequiredService<TimeProvider>()));
         services.AddSingleton(sp => new ExposureLogWriter(sp.GetRequiredService<IOptions<ExposureLogOptions>>().Value, sp.GetRequiredService<TimeProvider>()));
         services.AddSingleton<RiskPipeline>();
 
@@ -78,7 +93,8 @@ public static class ServiceRegistration
         services.AddHostedService<LimitsFileWatcher>();
         services.AddHealthChecks()
             .AddCheck<ExposureLogHealthCheck>("exposure-log")
-            .AddCheck<CurveHealthCheck>("curves");
+            .AddCheck<CurveHealthCheck>("curves")
+            .AddCheck<JournalHealthCheck>("trade-journal");
         return services;
     }
 

@@ -7,6 +7,7 @@ using Monitor.Analytics.Market;
 using Monitor.Contracts.V1;
 using Monitor.Service.Audit;
 using Monitor.Service.Engine;
+using Monitor.Service.Journal;
 using Monitor.Service.Telemetry;
 
 namespace Monitor.Service.Pipeline;
@@ -21,6 +22,7 @@ public sealed partial class RiskPipeline
 {
     private readonly RiskEngine _engine;
     private readonly ExposureLogWriter _log;
+    private readonly TradeJournal _journal;
     private readonly IBus _bus;
     private readonly MonitorMetrics _metrics;
     private readonly TimeProvider _time;
@@ -31,10 +33,11 @@ public sealed partial class RiskPipeline
     private readonly Channel<bool> _refitSignal = Channel.CreateBounded<bool>(new BoundedChannelOptions(1) { FullMode = BoundedChannelFullMode.DropWrite });
     private readonly Dictionary<string, Cause> _pendingCause = new(StringComparer.Ordinal);
 
-    public RiskPipeline(RiskEngine engine, ExposureLogWriter log, IBus bus, MonitorMetrics metrics, TimeProvider time, ILogger<RiskPipeline> logger)
+    public RiskPipeline(RiskEngine engine, ExposureLogWriter log, TradeJournal journal, IBus bus, MonitorMetrics metrics, TimeProvider time, ILogger<RiskPipeline> logger)
     {
         _engine = engine;
         _log = log;
+        _journal = journal;
         _bus = bus;
         _metrics = metrics;
         _time = time;
@@ -77,6 +80,7 @@ public sealed partial class RiskPipeline
         try
         {
             var key = _engine.AcceptQuote(quote, _time.GetUtcNow());
+            _journal.AppendQuote(quote); // kept to refit the curves after a restart; not awaited: quotes refresh all day
             _pendingCause[key] = cause;
         }
         finally
@@ -144,6 +148,9 @@ public sealed partial class RiskPipeline
             var outcome = _engine.CheckTrade(trade);
             if (outcome == TradeOutcome.Applied)
             {
+                // Durable before anything changes and before the consumer returns, so the broker's ack follows the
+                // fsync. A retry after a later failure journals the trade again; replay counts it once by version.
+                await _journal.AppendTradeAsync(trade, CancellationToken.None).ConfigureAwait(false);
                 _log.Append(ExposureLogKinds.TradeApplied, cause.EventTime, LogCause(cause), new Dictionary<string, object?>
                 {
                     ["tradeId"] = trade.TradeId,

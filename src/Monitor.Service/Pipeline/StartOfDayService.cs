@@ -4,20 +4,30 @@ using Microsoft.Extensions.Options;
 using Monitor.Files;
 using Monitor.Service.Engine;
 using Monitor.Service.Hosting;
+using Monitor.Service.Journal;
 
 namespace Monitor.Service.Pipeline;
 
 /// <summary>
-/// Runs once the bus is up: builds the engine (instruments, positions, limits: a bad file stops the start),
-/// then fits the opening curves from the opening quotes file when one is configured, publishing the result.
+/// Runs once the bus is up: builds the engine (instruments, positions, limits: a bad file stops the start; then
+/// today's trade journal replayed), reports what the replay did, then fits the opening curves from the opening quotes file when one is configured, publishing the result.
 /// </summary>
-public sealed partial class StartOfDayService(RiskPipeline pipeline, IOptions<MonitorOptions> options, TimeProvider time, ILogger<StartOfDayService> logger)
+public sealed partial class StartOfDayService(RiskPipeline pipeline, EngineRecovery recovery, IOptions<MonitorOptions> options, ILogger<StartOfDayService> logger)
     : IHostedService
 {
     public async Task StartAsync(CancellationToken cancellationToken)
     {
         var (date, books, instruments) = await pipeline.ReadAsync(e => (e.ValuationDate, e.Books.Count, e.Instruments.Count), cancellationToken).ConfigureAwait(false);
         LogStarted(date, books, instruments);
+        var replay = recovery.Result;
+        if (replay.Applied + replay.Duplicates + replay.Superseded + replay.QuotesAccepted > 0 || recovery.Journal.Problems.Count > 0)
+        {
+            LogRecovered(replay.Applied, replay.Duplicates, replay.Superseded, replay.QuotesAccepted, replay.RejectedTrades.Count + replay.RejectedQuotes.Count);
+        }
+        foreach (var problem in recovery.Journal.Problems)
+        {
+            LogJournalProblem(problem.ToString());
+        }
         if (options.Value.OpeningQuotesFile is { Length: > 0 } path)
         {
             var quotes = QuoteFile.Read(path);
@@ -28,13 +38,18 @@ public sealed partial class StartOfDayService(RiskPipeline pipeline, IOptions<Mo
             await pipeline.RefitAsync(cancellationToken).ConfigureAwait(false);
             LogOpeningFit(quotes.Count, path);
         }
-        _ = time;
     }
 
     public Task StopAsync(CancellationToken cancellationToken) => Task.CompletedTask;
 
     [LoggerMessage(Level = LogLevel.Information, Message = "Monitor started for valuation date {ValuationDate:yyyy-MM-dd}: {Books} books, {Instruments} instruments")]
     private partial void LogStarted(DateOnly valuationDate, int books, int instruments);
+
+    [LoggerMessage(Level = LogLevel.Warning, Message = "Recovered from today's trade journal: {Applied} trades applied, {Duplicates} duplicates, {Superseded} superseded, {Quotes} quotes kept, {Rejected} refused")]
+    private partial void LogRecovered(int applied, int duplicates, int superseded, int quotes, int rejected);
+
+    [LoggerMessage(Level = LogLevel.Warning, Message = "Trade journal problem found on replay: {Problem}")]
+    private partial void LogJournalProblem(string problem);
 
     [LoggerMessage(Level = LogLevel.Information, Message = "Opening curves fitted from {Count} quotes in {Path}")]
     private partial void LogOpeningFit(int count, string path);

@@ -24,9 +24,9 @@ public sealed class ServiceUnderTest : IAsyncDisposable
     public static readonly TimeSpan Window = TimeSpan.FromMilliseconds(50);
 
     private readonly ServiceProvider _provider;
-    private readonly TempFolder _folder;
+    private readonly TempFolder? _folder;
 
-    private ServiceUnderTest(ServiceProvider provider, TempFolder folder, FakeTimeProvider time, string logFolder)
+    private ServiceUnderTest(ServiceProvider provider, TempFolder? folder, FakeTimeProvider time, string logFolder)
     {
         _provider = provider;
         _folder = folder;
@@ -64,10 +64,11 @@ public sealed class ServiceUnderTest : IAsyncDisposable
 
     /// <param name="limitsFile">A limits file other than Data/limits.json.</param>
     /// <param name="logStream">Wraps each exposure-log day file's stream (to inject write failures).</param>
-    public static async Task<ServiceUnderTest> StartAsync(string? limitsFile = null, Func<Stream, Stream>? logStream = null)
+    /// <param name="root">A folder the caller keeps (to restart a service on the same log and journal); default a new temporary one.</param>
+    public static async Task<ServiceUnderTest> StartAsync(string? limitsFile = null, Func<Stream, Stream>? logStream = null, string? root = null)
     {
-        var folder = new TempFolder();
-        var logFolder = folder.Combine("exposure-log");
+        var folder = root is null ? new TempFolder() : null;
+        var logFolder = Path.Combine(root ?? folder!.Path, "exposure-log");
         var configuration = new ConfigurationBuilder().AddInMemoryCollection(Settings(logFolder, limitsFile)).Build();
         var time = new FakeTimeProvider(TestMarket.Now);
         var services = new ServiceCollection();
@@ -173,7 +174,7 @@ public sealed class ServiceUnderTest : IAsyncDisposable
         }
         finally
         {
-            _folder.Dispose();
+            _folder?.Dispose();
         }
     }
 }
