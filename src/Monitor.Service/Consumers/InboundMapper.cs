@@ -39,9 +39,19 @@ public static class InboundMapper
         ["yield"] = "yield",
     };
 
+    /// <summary>Longest id (instrument, trade, book) accepted; longer text is a producer's bug, not an id.</summary>
+    public const int MaxIdLength = 64;
+
+    /// <summary>Longest free text (issuer, source) accepted.</summary>
+    public const int MaxTextLength = 256;
+
     public static Bond ToBond(InstrumentDefined m)
     {
         ArgumentNullException.ThrowIfNull(m);
+        Length("instrumentId", m.InstrumentId, MaxIdLength);
+        Length("issuer", m.Issuer, MaxTextLength);
+        Length("spreadGroup", m.SpreadGroup, MaxIdLength);
+        Length("currency", m.Currency, 3);
         if (!DayCounters.TryParse(m.DayCount, out var dayCount))
         {
             throw new MessageRejectedException("dayCount", m.DayCount, "is not a day count; use ACT/ACT-ICMA, ACT/ACT-ISDA, 30/360, 30E/360, ACT/360 or ACT/365F.");
@@ -70,6 +80,9 @@ public static class InboundMapper
     public static BondQuote ToQuote(BondQuoted m)
     {
         ArgumentNullException.ThrowIfNull(m);
+        Length("instrumentId", m.InstrumentId, MaxIdLength);
+        Length("quoteId", m.QuoteId, MaxIdLength);
+        Length("source", m.Source, MaxTextLength);
         try
         {
             return new BondQuote(m.InstrumentId, m.QuoteTime, m.BidCleanPrice, m.AskCleanPrice, m.MidCleanPrice, m.Yield, m.Source);
@@ -91,6 +104,9 @@ public static class InboundMapper
     public static TradeInput ToTrade(TradeBooked m)
     {
         ArgumentNullException.ThrowIfNull(m);
+        Length("tradeId", m.TradeId, MaxIdLength);
+        Length("book", m.Book, MaxIdLength);
+        Length("instrumentId", m.InstrumentId, MaxIdLength);
         if (string.IsNullOrWhiteSpace(m.TradeId))
         {
             throw new MessageRejectedException("tradeId", m.TradeId, "is blank.");
@@ -139,6 +155,14 @@ public static class InboundMapper
             points.Add((point.Tenor.Trim(), point.ParYield));
         }
         return points;
+    }
+
+    private static void Length(string field, string? value, int max)
+    {
+        if (value is not null && value.Length > max)
+        {
+            throw new MessageRejectedException(field, value[..Math.Min(40, value.Length)] + "...", $"is {value.Length} characters long; at most {max} are accepted.");
+        }
     }
 
     private static string Text(double value) => value.ToString("G", CultureInfo.InvariantCulture);

@@ -28,6 +28,9 @@ public sealed class RiskEngine
     private readonly ParYieldCurveFitter _parYieldFitter = new();
     private readonly Dictionary<string, SpreadCurveFitter> _spreadFitters = new(StringComparer.Ordinal);
     private readonly TradeRegister _trades = new();
+
+    /// <summary>Days either side of the valuation date a trade time may fall (common practice, no source: late bookings within a week).</summary>
+    private const int TradeDayWindow = 7;
     private readonly LimitSet _limits;
 
     public RiskEngine(EngineSettings settings, LimitsConfiguration limits)
@@ -62,7 +65,7 @@ public sealed class RiskEngine
         ArgumentNullException.ThrowIfNull(bond);
         if (_instruments.TryGetValue(bond.Id, out var existing) && !SameTerms(existing, bond) && IsHeld(bond.Id))
         {
-            throw new MessageRejectedException("id", bond.Id, "is held in a book and its terms differ from the ones in use; amend reference data after the positions are closed.");
+            throw new MessageRejectedException("instrumentId", bond.Id, "is held in a book and its terms differ from the ones in use; amend reference data after the positions are closed.");
         }
         _instruments[bond.Id] = bond;
         _flows[bond.Id] = bond.MaturityDate > ValuationDate ? bond.CashFlowsAfter(ValuationDate) : [];
@@ -211,6 +214,13 @@ public sealed class RiskEngine
         if (!double.IsFinite(trade.CleanPrice) || trade.CleanPrice <= 0 || trade.CleanPrice > BondQuote.MaxPrice)
         {
             throw new MessageRejectedException("cleanPrice", trade.CleanPrice.ToString("G", CultureInfo.InvariantCulture), $"is outside (0, {BondQuote.MaxPrice}] per 100 face.");
+        }
+        // A trade time weeks away from the valuation date is a clock or mapping error, not a trade of today's books.
+        var tradeDay = DateOnly.FromDateTime(trade.TradeTime.UtcDateTime);
+        if (tradeDay < ValuationDate.AddDays(-TradeDayWindow) || tradeDay > ValuationDate.AddDays(TradeDayWindow))
+        {
+            throw new MessageRejectedException("tradeTime", Iso(trade.TradeTime),
+                $"is more than {TradeDayWindow} days from the valuation date {ValuationDate:yyyy-MM-dd}; check the source's clock.");
         }
         return _trades.Classify(trade).Outcome;
     }
@@ -402,7 +412,7 @@ public sealed class RiskEngine
         }
         catch (ArgumentException ex)
         {
-            throw new MessageRejectedException(quote.CleanMid is null ? "yield" : "mid", (quote.CleanMid ?? quote.Yield)?.ToString("G", CultureInfo.InvariantCulture), ex.Message);
+            throw new MessageRejectedException(quote.CleanMid is null ? "yield" : "midCleanPrice", (quote.CleanMid ?? quote.Yield)?.ToString("G", CultureInfo.InvariantCulture), ex.Message);
         }
         return new PricedQuote(quote, bond, settlement, priced.CleanPrice, priced.DirtyPrice, priced.Yield, priced.ModifiedDuration, priced.Times, priced.Amounts);
     }

@@ -38,6 +38,28 @@ public sealed class RiskEngineRejectionTests
         Assert.Equal(before, EngineState.Of(engine));
     }
 
+    [Theory]
+    [InlineData(-30)]
+    [InlineData(30)]
+    public void A_trade_time_weeks_from_the_valuation_date_is_rejected(int days)
+    {
+        var engine = TestMarket.OpenedEngine();
+        var before = EngineState.Of(engine);
+        var trade = Trade() with { TradeTime = TestMarket.Now.AddDays(days) };
+        var ex = Assert.Throws<MessageRejectedException>(() => engine.ApplyTrade(trade, TestMarket.Now));
+        Assert.Equal("tradeTime", ex.Field);
+        Assert.Equal(before, EngineState.Of(engine));
+    }
+
+    [Fact]
+    public void Oversized_ids_are_refused_by_the_inbound_mapper_naming_the_field()
+    {
+        var message = ServiceUnderTest.Trade(new string('T', 10_000), 1, "new", "RATES-CORE", "VGB-2034-11", 1_000_000);
+        var ex = Assert.Throws<MessageRejectedException>(() => Monitor.Service.Consumers.InboundMapper.ToTrade(message));
+        Assert.Equal("tradeId", ex.Field);
+        Assert.Contains("10000 characters", ex.Message, StringComparison.Ordinal);
+    }
+
     [Fact]
     public void A_trade_in_a_matured_bond_is_rejected()
     {
