@@ -36,11 +36,17 @@ internal static class FaultFigures
         }
         var verification = rig.VerifyExposureLog();
         var dayEnds = rig.ExposureRecords(ExposureLogKinds.DayEnd).Count;
+        var fitted = rig.ExposureRecords(ExposureLogKinds.CurveFitted).Count;
+        var rejected = rig.ExposureRecords(ExposureLogKinds.CurveRejected);
 
         output.WriteLine(string.Create(CultureInfo.InvariantCulture,
             $"fault: {fault}; sent: {stream.Messages.Count} messages ({stream.TradeMessages} trade versions of {stream.LastVersions.Count} trades, {stream.QuoteMessages} quotes); " +
             $"lost: {lost}; duplicated: {duplicated}; refused to error queues: {errorQueued}; positions wrong: {wrong.Count} of {expected.Count}; " +
-            $"trade versions without a trade-applied record: {notLogged}; journal problems: {journalProblems.Count}; exposure log: {verification.Records} records, intact {verification.Intact}; day-end records: {dayEnds}"));
+            $"trade versions without a trade-applied record: {notLogged}; journal problems: {journalProblems.Count}; exposure log: {verification.Records} records, intact {verification.Intact}; day-end records: {dayEnds}; curves fitted: {fitted}, rejected: {rejected.Count}"));
+        foreach (var rejection in rejected.Take(3))
+        {
+            output.WriteLine($"curve rejected: {rejection.ToJsonString()}");
+        }
         foreach (var problem in journalProblems)
         {
             output.WriteLine($"journal problem: {problem}");

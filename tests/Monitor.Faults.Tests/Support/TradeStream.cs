@@ -11,7 +11,9 @@ namespace Monitor.Faults.Tests.Support;
 /// </summary>
 public sealed class TradeStream
 {
-    private static readonly string[] Books = ["RATES-CORE", "RATES-CURVE", "CREDIT-IG"];
+    // Government bonds in the rates books only: the test market's spread group UTIL-A has 3 bonds, too few for a
+    // spread curve (a fit needs 4), so a book holding a credit bond is never valued and writes no day-end snapshot.
+    private static readonly string[] Books = ["RATES-CORE", "RATES-CURVE"];
 
     private readonly Dictionary<string, (int Version, string Book, string Instrument, double Face, bool Cancelled)> _last = new(StringComparer.Ordinal);
 
@@ -48,7 +50,7 @@ public sealed class TradeStream
     {
         var random = new Random(seed);
         var quotes = ReadMids(Path.Combine(dataFolder, "quotes-open.csv"));
-        var instruments = quotes.Keys.Order(StringComparer.Ordinal).ToArray();
+        var instruments = quotes.Keys.Where(id => id.StartsWith("VGB-", StringComparison.Ordinal)).Order(StringComparer.Ordinal).ToArray();
         var runPrefix = "F" + seed.ToString(CultureInfo.InvariantCulture) + "-";
 
         // Each trade's events in version order; the interleaving below keeps that order.
