@@ -151,16 +151,7 @@ public sealed partial class RiskPipeline
                 // Durable before anything changes and before the consumer returns, so the broker's ack follows the
                 // fsync. A retry after a later failure journals the trade again; replay counts it once by version.
                 await _journal.AppendTradeAsync(trade, CancellationToken.None).ConfigureAwait(false);
-                _log.Append(ExposureLogKinds.TradeApplied, cause.EventTime, LogCause(cause), new Dictionary<string, object?>
-                {
-                    ["tradeId"] = trade.TradeId,
-                    ["version"] = trade.Version,
-                    ["action"] = trade.Action.ToString().ToLowerInvariant(),
-                    ["book"] = trade.Book,
-                    ["instrumentId"] = trade.InstrumentId,
-                    ["faceAmount"] = trade.FaceAmount,
-                    ["cleanPrice"] = trade.CleanPrice,
-                });
+                _log.Append(ExposureLogKinds.TradeApplied, cause.EventTime, LogCause(cause), TradePayload(trade));
             }
             else
             {
@@ -298,6 +289,42 @@ public sealed partial class RiskPipeline
         }
         return payload;
     }
+
+    /// <summary>
+    /// Writes the <c>trade-applied</c> records that a crash between the journal's fsync and the log write left out,
+    /// for trades the start-up replay applied from the journal. Returns how many were written.
+    /// </summary>
+    public async Task<int> RecordReplayedTradesAsync(IReadOnlyList<TradeInput> replayed, string exposureLogFolder, CancellationToken cancellationToken)
+    {
+        await _gate.WaitAsync(cancellationToken).ConfigureAwait(false);
+        try
+        {
+            var logged = LoggedTrades.Read(exposureLogFolder);
+            var written = 0;
+            foreach (var trade in replayed.Where(t => !logged.Contains((t.TradeId, t.Version))))
+            {
+                _log.Append(ExposureLogKinds.TradeApplied, trade.TradeTime, new ExposureLogCause(null, "journal-replay"), TradePayload(trade));
+                logged.Add((trade.TradeId, trade.Version));
+                written++;
+            }
+            return written;
+        }
+        finally
+        {
+            _gate.Release();
+        }
+    }
+
+    private static Dictionary<string, object?> TradePayload(TradeInput trade) => new()
+    {
+        ["tradeId"] = trade.TradeId,
+        ["version"] = trade.Version,
+        ["action"] = trade.Action.ToString().ToLowerInvariant(),
+        ["book"] = trade.Book,
+        ["instrumentId"] = trade.InstrumentId,
+        ["faceAmount"] = trade.FaceAmount,
+        ["cleanPrice"] = trade.CleanPrice,
+    };
 
     private static ExposureLogCause LogCause(Cause cause) =>
         new(string.IsNullOrEmpty(cause.MessageId) ? null : cause.MessageId, cause.MessageType);

@@ -2,6 +2,7 @@ using Microsoft.Extensions.Hosting;
 using Microsoft.Extensions.Logging;
 using Microsoft.Extensions.Options;
 using Monitor.Files;
+using Monitor.Service.Audit;
 using Monitor.Service.Engine;
 using Monitor.Service.Hosting;
 using Monitor.Service.Journal;
@@ -12,7 +13,7 @@ namespace Monitor.Service.Pipeline;
 /// Runs once the bus is up: builds the engine (instruments, positions, limits: a bad file stops the start; then
 /// today's trade journal replayed), reports what the replay did, then fits the opening curves from the opening quotes file when one is configured, publishing the result.
 /// </summary>
-public sealed partial class StartOfDayService(RiskPipeline pipeline, EngineRecovery recovery, IOptions<MonitorOptions> options, ILogger<StartOfDayService> logger)
+public sealed partial class StartOfDayService(RiskPipeline pipeline, EngineRecovery recovery, IOptions<MonitorOptions> options, IOptions<ExposureLogOptions> log, ILogger<StartOfDayService> logger)
     : IHostedService
 {
     public async Task StartAsync(CancellationToken cancellationToken)
@@ -27,6 +28,11 @@ public sealed partial class StartOfDayService(RiskPipeline pipeline, EngineRecov
         foreach (var problem in recovery.Journal.Problems)
         {
             LogJournalProblem(problem.ToString());
+        }
+        var restored = await pipeline.RecordReplayedTradesAsync(recovery.Journal.Trades, log.Value.Folder, cancellationToken).ConfigureAwait(false);
+        if (restored > 0)
+        {
+            LogAuditRestored(restored);
         }
         if (options.Value.OpeningQuotesFile is { Length: > 0 } path)
         {
@@ -47,6 +53,9 @@ public sealed partial class StartOfDayService(RiskPipeline pipeline, EngineRecov
 
     [LoggerMessage(Level = LogLevel.Warning, Message = "Recovered from today's trade journal: {Applied} trades applied, {Duplicates} duplicates, {Superseded} superseded, {Quotes} quotes kept, {Rejected} refused")]
     private partial void LogRecovered(int applied, int duplicates, int superseded, int quotes, int rejected);
+
+    [LoggerMessage(Level = LogLevel.Warning, Message = "{Count} journalled trades had no trade-applied record (a crash between the journal and the log); written now with cause journal-replay")]
+    private partial void LogAuditRestored(int count);
 
     [LoggerMessage(Level = LogLevel.Warning, Message = "Trade journal problem found on replay: {Problem}")]
     private partial void LogJournalProblem(string problem);

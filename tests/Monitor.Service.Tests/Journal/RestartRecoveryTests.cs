@@ -1,4 +1,7 @@
+using Microsoft.Extensions.Time.Testing;
 using Monitor.Service.Audit;
+using Monitor.Service.Engine;
+using Monitor.Service.Journal;
 using Monitor.Service.Tests.Support;
 
 namespace Monitor.Service.Tests.Journal;
@@ -35,6 +38,27 @@ public class RestartRecoveryTests
         var log = ExposureLogVerifier.VerifyFolder(second.LogFolder);
         Assert.True(log.Intact, string.Join("; ", log.Problems));
         Assert.True(log.LastSeq > lastSeq, "the second run appends to the same chain");
+    }
+
+    [Fact]
+    public async Task A_journalled_trade_missing_from_the_exposure_log_is_recorded_at_start()
+    {
+        // A kill between the journal's fsync and the log write: the trade is durable, its audit record is not.
+        using var root = new TempFolder();
+        var trade = new TradeInput("J-1", 1, TradeAction.New, "RATES-CORE", "VGB-2031-05", 2_000_000, 99.5, TestMarket.Now.AddMinutes(-2));
+        await using (var journal = new TradeJournal(new JournalOptions { Folder = Path.Combine(root.Path, "exposure-log-journal") }, new FakeTimeProvider(TestMarket.Now)))
+        {
+            await journal.AppendTradeAsync(trade);
+        }
+
+        await using var service = await ServiceUnderTest.StartAsync(root: root.Path);
+        Assert.Equal(1, await service.Pipeline.ReadAsync(e => e.Trades.Count));
+        var records = File.ReadAllLines(Directory.GetFiles(service.LogFolder, "*.jsonl").Single())
+            .Where(l => l.Contains("\"kind\":\"trade-applied\"", StringComparison.Ordinal)).ToArray();
+        var record = Assert.Single(records);
+        Assert.Contains("\"journal-replay\"", record, StringComparison.Ordinal);
+        Assert.Contains("\"tradeId\":\"J-1\"", record, StringComparison.Ordinal);
+        Assert.True(service.VerifyLog().Intact);
     }
 
     /// <summary>Positions (exact), trade count (exact) and book figures (to 1e-6 relative: the restarted curves are refitted cold from the journalled quotes and stop within the fit tolerance of the warm-started ones).</summary>
