@@ -52,7 +52,7 @@ internal static class LoadRunner
         Environment.SetEnvironmentVariable(BrokerOptions.UserVariable, options.Broker.User);
         Environment.SetEnvironmentVariable(BrokerOptions.PasswordVariable, options.Broker.Password);
         var opening = new QuoteStream(bonds, 1, 0, 0, options.Seed);
-        OpeningQuotes.Write(Path.Combine(configDir, "opening-quotes.csv"), opening.Factory);
+        OpeningTape.Write(Path.Combine(configDir, "opening-quotes.csv"), opening, DateTimeOffset.UtcNow);
         var settings = new Dictionary<string, string?>
         {
             ["Monitor:InstrumentsFile"] = Path.Combine(configDir, "instruments.csv"),
@@ -61,14 +61,13 @@ internal static class LoadRunner
             ["Monitor:OpeningQuotesFile"] = Path.Combine(configDir, "opening-quotes.csv"),
             ["Monitor:ValuationDate"] = DemoScenario.ValuationDate.ToString("yyyy-MM-dd", CultureInfo.InvariantCulture),
             ["Monitor:ConflationWindow"] = options.ConflationWindow.ToString("c", CultureInfo.InvariantCulture),
-            // The opening quotes carry the demo day's time stamps; keep them usable on the real clock.
-            ["Monitor:StaleQuoteAfter"] = "3650.00:00:00",
             ["Monitor:SnapshotInterval"] = "00:00:00",
             ["Transport:Kind"] = "RabbitMq",
             ["Transport:Broker:Host"] = options.Broker.Host,
             ["Transport:Broker:Port"] = options.Broker.Port.ToString(CultureInfo.InvariantCulture),
             ["Transport:Broker:VirtualHost"] = options.Broker.VirtualHost,
             ["ExposureLog:Folder"] = Path.Combine(options.WorkDir, "exposure-log"),
+            ["ExposureLog:FlushToDisk"] = options.LogFlushToDisk ? "true" : "false",
         };
         var serviceLog = Path.Combine(options.WorkDir, "monitor.log");
         using var host = MonitorHost.InProcess(
@@ -83,9 +82,10 @@ internal static class LoadRunner
         await progress.WriteLineAsync("service: starting in-process on RabbitMQ (opening fit, 1 curve)...").ConfigureAwait(false);
         await host.StartAsync(cancellationToken).ConfigureAwait(false);
         var counter = new ConsumptionCounter();
+        LatencyTracker? current = null;
+        counter.Consumed += (id, at) => Volatile.Read(ref current)?.OnConsumed(id, at);
         var serviceBus = (IBus)host.Services.GetService(typeof(IBus))!;
         using var observer = new ObserverHandle(serviceBus.ConnectConsumeMessageObserver(counter));
-        LatencyTracker? current = null;
         var publisher = PublisherBus(options.Broker, cfg => cfg.ReceiveEndpoint(EventsQueue, e =>
         {
             e.Durable = false;
@@ -201,7 +201,7 @@ internal static class LoadRunner
         tracker.Finish();
         var latencies = trades is null
             ? new[] { tracker.Consumed.Summary() }
-            : [tracker.Curve.Summary(), tracker.AnyQuoteCurve.Summary(), tracker.Status.Summary(), tracker.BooksFirst.Summary(), tracker.BooksLast.Summary()];
+            : [tracker.Consumed.Summary(), tracker.Curve.Summary(), tracker.AnyQuoteCurve.Summary(), tracker.Status.Summary(), tracker.BooksFirst.Summary(), tracker.BooksLast.Summary()];
         return new PhaseResult(mode, measured, seconds, measured / seconds, latencies, tracker.CurveEvents, tracker.StatusEvents, tracker.BookEvents, tradesSent, 0, 0, 0, 0, 0, 0);
     }
 
