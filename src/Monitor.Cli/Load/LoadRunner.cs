@@ -76,7 +76,7 @@ internal static class LoadRunner
                 .MinimumLevel.Override("MassTransit", LogEventLevel.Warning)
                 .MinimumLevel.Override("Microsoft", LogEventLevel.Warning)
                 .WriteTo.File(serviceLog, formatProvider: CultureInfo.InvariantCulture)
-                .WriteTo.Console(restrictedToMinimumLevel: LogEventLevel.Error, standardErrorFromLevel: LogEventLevel.Verbose, formatProvider: CultureInfo.InvariantCulture),
+                .WriteTo.Console(restrictedToMinimumLevel: LogEventLevel.Fatal, standardErrorFromLevel: LogEventLevel.Verbose, formatProvider: CultureInfo.InvariantCulture),
             _ => { },
             _ => { });
         await progress.WriteLineAsync("service: starting in-process on RabbitMQ (opening fit, 1 curve)...").ConfigureAwait(false);
@@ -172,6 +172,8 @@ internal static class LoadRunner
         await progress.WriteLineAsync(string.Create(CultureInfo.InvariantCulture,
             $"{mode}: paced {options.Rate} quotes/s, {options.WarmupSeconds} s warm-up + {options.Seconds} s measured ({total} quotes)...")).ConfigureAwait(false);
         long tradesSent = 0;
+        var inFlight = new List<Task>(LoadOptions.MaxInFlight + 1);
+        var baseline = counter.Count;
         var clock = Stopwatch.StartNew();
         TimeSpan measuredFrom = default;
         for (long i = 0; i < total; i++)
@@ -188,14 +190,28 @@ internal static class LoadRunner
             var quote = stream.Next(i, DateTimeOffset.UtcNow);
             var id = NewId.NextGuid();
             tracker.Published(id, i, Stopwatch.GetTimestamp());
-            await quotes.Send(quote, c => c.MessageId = id, cancellationToken).ConfigureAwait(false);
+            // Not awaited one by one: a send completes on the broker's publisher confirm, and waiting for each would
+            // cap the rate at one confirm round trip per quote. At most MaxInFlight sends are outstanding.
+            inFlight.Add(quotes.Send(quote, c => c.MessageId = id, cancellationToken));
             if (trades is not null && options.TradeEvery > 0 && i % options.TradeEvery == options.TradeEvery - 1)
             {
-                await trades.Send(stream.Trade(i, LoadScenario.BookId(random.Next(options.Books)), random, DateTimeOffset.UtcNow), cancellationToken).ConfigureAwait(false);
+                inFlight.Add(trades.Send(stream.Trade(i, LoadScenario.BookId(random.Next(options.Books)), random, DateTimeOffset.UtcNow), cancellationToken));
                 tradesSent++;
             }
+            if (inFlight.Count >= LoadOptions.MaxInFlight)
+            {
+                await Task.WhenAll(inFlight).ConfigureAwait(false);
+                inFlight.Clear();
+            }
+            else
+            {
+                inFlight.RemoveAll(t => t.IsCompletedSuccessfully);
+            }
         }
+        await Task.WhenAll(inFlight).ConfigureAwait(false);
         var seconds = (clock.Elapsed - measuredFrom).TotalSeconds;
+        // Every paced quote consumed (at most 3 minutes: a service that falls behind shows it in the latencies), then the events.
+        await WaitForAsync(() => counter.Count - baseline >= total, TimeSpan.FromMinutes(3), cancellationToken).ConfigureAwait(false);
         await DrainAsync(() => tracker.CurveEvents + tracker.StatusEvents + tracker.BookEvents + counter.Count, TimeSpan.FromSeconds(2), TimeSpan.FromSeconds(30), cancellationToken).ConfigureAwait(false);
         setTracker(null);
         tracker.Finish();
@@ -259,6 +275,16 @@ internal static class LoadRunner
         await DrainAsync(() => tracker.CurveEvents + tracker.StatusEvents + tracker.BookEvents + counter.Count, TimeSpan.FromSeconds(2), TimeSpan.FromSeconds(30), cancellationToken).ConfigureAwait(false);
         setTracker(null);
         return new Throughput(count, count / published, consumed, consumed / seconds, seconds);
+    }
+
+    /// <summary>Waits until <paramref name="done"/> holds, at most <paramref name="most"/>.</summary>
+    private static async Task WaitForAsync(Func<bool> done, TimeSpan most, CancellationToken cancellationToken)
+    {
+        var total = Stopwatch.StartNew();
+        while (!done() && total.Elapsed < most)
+        {
+            await Task.Delay(50, cancellationToken).ConfigureAwait(false);
+        }
     }
 
     /// <summary>Waits until <paramref name="activity"/> has not changed for <paramref name="quiet"/>, at most <paramref name="most"/>.</summary>
