@@ -20,7 +20,7 @@ internal static class LoadVerb
         var warmup = new Option<double>("--warmup") { Description = "Warm-up seconds at the paced rate before measuring.", DefaultValueFactory = _ => 3 };
         var books = new Option<int>("--books") { Description = "Number of generated books (10 positions each) in service mode.", DefaultValueFactory = _ => 1000 };
         var mode = new Option<LoadMode>("--mode") { Description = "service (the monitor in-process), bare (a consumer that does nothing) or both.", DefaultValueFactory = _ => LoadMode.Both };
-        var count = new Option<long>("--count") { Description = "Quotes in the max-rate throughput phase.", DefaultValueFactory = _ => 20_000 };
+        var count = new Option<long>("--count") { Description = "Quotes in the max-rate throughput phase.", DefaultValueFactory = _ => 5_000 };
         var tradeEvery = new Option<int>("--trade-every") { Description = "Service mode: a trade after every N quotes; 0 for none.", DefaultValueFactory = _ => 250 };
         var conflation = new Option<double>("--conflation-ms") { Description = "The service's conflation window in milliseconds (its default is 20).", DefaultValueFactory = _ => 20 };
         var workDir = new Option<DirectoryInfo?>("--work-dir") { Description = "Folder for the generated books, the exposure log and the service log; default a new monitor-load-<time> folder under the system temp folder." };
