@@ -24,5 +24,6 @@ internal static class EntryPoint
         yield return FitVerb.Create();
         yield return RiskVerb.Create();
         yield return ExplainVerb.Create();
+        yield return LoadVerb.Create();
     }
 }
