@@ -274,10 +274,10 @@ public sealed partial class RiskPipeline
             _metrics.ExposureDuration.Record(result.ExposureMilliseconds);
         }
         _metrics.QueueLag.Record((now - cause.EventTime).TotalMilliseconds);
-        foreach (var message in messages)
-        {
-            await _bus.Publish(message, message.GetType(), cancellationToken).ConfigureAwait(false);
-        }
+        // The messages of one change are independent (different curves, books and limits), so they are sent
+        // together and their broker confirms awaited at once; one after another, 1,000 book events took ~1 s of
+        // round trips under the lock (measured with `monitor load`). Order across changes is kept by the lock.
+        await Task.WhenAll(messages.Select(m => _bus.Publish(m, m.GetType(), cancellationToken))).ConfigureAwait(false);
     }
 
     private static Dictionary<string, object?> BookPayload(string book, IReadOnlyDictionary<Limits.ExposureMeasure, double> totals, string curves)
