@@ -131,35 +131,6 @@ public class BookRiskPropertyTests
     private static Dictionary<string, IReadOnlyList<CashFlow>> Snapshot(BookCashFlowLedger ledger) =>
         ledger.CurveKeys.ToDictionary(k => k, ledger.CashFlows);
 
-    private static void AssertClose(FactorExposures expected, FactorExposures actual, FactorExposures gross)
-    {
-        const double rel = 1e-9;
-        Assert.Equal(expected.BaseFactorCount, actual.BaseFactorCount);
-        Check(expected.Value, actual.Value, gross.Value, "value");
-        var nb = expected.BaseFactorCount;
-        var ns = Math.Max(expected.SpreadFactorCount, actual.SpreadFactorCount);
-        for (var j = 0; j < nb; j++)
-        {
-            Check(expected.BaseMoneyDuration(j), actual.BaseMoneyDuration(j), gross.BaseMoneyDuration(j), $"base money duration {j}");
-            for (var k = 0; k < nb; k++)
-            {
-                Check(expected.BaseMoneyConvexity(j, k), actual.BaseMoneyConvexity(j, k), gross.BaseMoneyConvexity(j, k), $"base convexity {j},{k}");
-            }
-            for (var k = 0; k < ns; k++)
-            {
-                Check(expected.BaseSpreadMoneyConvexity(j, k), actual.BaseSpreadMoneyConvexity(j, k), gross.BaseSpreadMoneyConvexity(j, k), $"mixed {j},{k}");
-            }
-        }
-        for (var j = 0; j < ns; j++)
-        {
-            Check(expected.SpreadMoneyDuration(j), actual.SpreadMoneyDuration(j), gross.SpreadMoneyDuration(j), $"spread money duration {j}");
-            for (var k = 0; k < ns; k++)
-            {
-                Check(expected.SpreadMoneyConvexity(j, k), actual.SpreadMoneyConvexity(j, k), gross.SpreadMoneyConvexity(j, k), $"spread convexity {j},{k}");
-            }
-        }
-
-        static void Check(double e, double a, double scale, string what) =>
-            Assert.True(Math.Abs(e - a) <= rel * Math.Max(Math.Abs(e), Math.Abs(scale)) + 1e-300, $"{what}: reference {e:R}, book {a:R}");
-    }
+    private static void AssertClose(FactorExposures expected, FactorExposures actual, FactorExposures gross) =>
+        RiskAssert.Close(expected, actual, gross);
 }
