@@ -98,17 +98,7 @@ internal static class LoadRunner
         {
             var quotes = await publisher.GetSendEndpoint(new Uri($"queue:{InboundEndpoints.Quotes}")).ConfigureAwait(false);
             var trades = await publisher.GetSendEndpoint(new Uri($"queue:{InboundEndpoints.Trades}")).ConfigureAwait(false);
-            var paced = await PacedPhaseAsync("service", options, bonds, quotes, trades, t => Volatile.Write(ref current, t), counter, progress, cancellationToken).ConfigureAwait(false);
-            var throughput = await ThroughputPhaseAsync("service", options, bonds, quotes, t => Volatile.Write(ref current, t), counter, progress, cancellationToken).ConfigureAwait(false);
-            return paced with
-            {
-                ThroughputSent = throughput.Sent,
-                PublishRate = throughput.PublishRate,
-                ThroughputConsumed = throughput.Consumed,
-                ConsumeRate = throughput.ConsumeRate,
-                ThroughputSeconds = throughput.Seconds,
-                Faults = counter.Faults,
-            };
+            return await BothPhasesAsync("service", options, bonds, quotes, trades, t => Volatile.Write(ref current, t), counter, progress, cancellationToken).ConfigureAwait(false);
         }
         finally
         {
@@ -138,23 +128,30 @@ internal static class LoadRunner
         try
         {
             var quotes = await publisher.GetSendEndpoint(new Uri($"queue:{BareQueue}")).ConfigureAwait(false);
-            var paced = await PacedPhaseAsync("bare", options, bonds, quotes, null, t => Volatile.Write(ref current, t), counter, progress, cancellationToken).ConfigureAwait(false);
-            var throughput = await ThroughputPhaseAsync("bare", options, bonds, quotes, t => Volatile.Write(ref current, t), counter, progress, cancellationToken).ConfigureAwait(false);
-            return paced with
-            {
-                ThroughputSent = throughput.Sent,
-                PublishRate = throughput.PublishRate,
-                ThroughputConsumed = throughput.Consumed,
-                ConsumeRate = throughput.ConsumeRate,
-                ThroughputSeconds = throughput.Seconds,
-                Faults = counter.Faults,
-            };
+            return await BothPhasesAsync("bare", options, bonds, quotes, null, t => Volatile.Write(ref current, t), counter, progress, cancellationToken).ConfigureAwait(false);
         }
         finally
         {
             await publisher.StopAsync(CancellationToken.None).ConfigureAwait(false);
             await consumer.StopAsync(CancellationToken.None).ConfigureAwait(false);
         }
+    }
+
+    /// <summary>The paced phase, then the throughput phase, merged into one result.</summary>
+    private static async Task<PhaseResult> BothPhasesAsync(string name, LoadOptions options, IReadOnlyList<Monitor.Analytics.Instruments.Bond> bonds, ISendEndpoint quotes, ISendEndpoint? trades,
+        Action<LatencyTracker?> setCurrent, ConsumptionCounter counter, TextWriter progress, CancellationToken cancellationToken)
+    {
+        var paced = await PacedPhaseAsync(name, options, bonds, quotes, trades, setCurrent, counter, progress, cancellationToken).ConfigureAwait(false);
+        var throughput = await ThroughputPhaseAsync(name, options, bonds, quotes, setCurrent, counter, progress, cancellationToken).ConfigureAwait(false);
+        return paced with
+        {
+            ThroughputSent = throughput.Sent,
+            PublishRate = throughput.PublishRate,
+            ThroughputConsumed = throughput.Consumed,
+            ConsumeRate = throughput.ConsumeRate,
+            ThroughputSeconds = throughput.Seconds,
+            Faults = counter.Faults,
+        };
     }
 
     /// <summary>Warm-up then the measured paced run; waits for the events (or consumption) to drain, at most 30 s.</summary>

@@ -4,6 +4,8 @@ using Serilog.Core;
 using Serilog.Events;
 using Serilog.Sinks.File;
 
+using Monitor.Service.Storage;
+
 namespace Monitor.Service.Audit;
 
 /// <summary>
@@ -71,7 +73,7 @@ internal sealed class DailyAuditFileSink(FileLifecycleHooks? hooks) : ILogEventS
         _needsRepair = false;
         if (!string.Equals(path, _path, StringComparison.Ordinal))
         {
-            var length = LengthOf(path); // may throw: then _path still names the file repaired above
+            var length = FileLength.Of(path); // may throw: then _path still names the file repaired above
             _path = path;
             _goodLength = length;
         }
@@ -84,17 +86,6 @@ internal sealed class DailyAuditFileSink(FileLifecycleHooks? hooks) : ILogEventS
         _needsRepair = false;
     }
 
-    /// <summary>Length of the file's content, following symbolic links (FileInfo.Length gives the link's own length).</summary>
-    private static long LengthOf(string path)
-    {
-        if (!File.Exists(path))
-        {
-            return 0;
-        }
-
-        using var stream = new FileStream(path, FileMode.Open, FileAccess.Read, FileShare.ReadWrite);
-        return stream.Length;
-    }
 
     private void CloseQuietly()
     {

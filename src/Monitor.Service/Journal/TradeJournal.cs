@@ -2,6 +2,8 @@ using System.Threading.Channels;
 using Monitor.Analytics.Market;
 using Monitor.Service.Engine;
 
+using Monitor.Service.Storage;
+
 namespace Monitor.Service.Journal;
 
 /// <summary>
@@ -187,7 +189,7 @@ public sealed class TradeJournal : IAsyncDisposable
         {
             Directory.CreateDirectory(_folder);
             var existing = JournalReplay.ReadFile(path);
-            if (existing.CompleteLength < LengthOf(path))
+            if (existing.CompleteLength < FileLength.Of(path))
             {
                 TruncateTo(path, existing.CompleteLength);
                 lock (_repairs)
@@ -213,16 +215,6 @@ public sealed class TradeJournal : IAsyncDisposable
         }
     }
 
-    /// <summary>Length of the file's content, following symbolic links; 0 when missing.</summary>
-    private static long LengthOf(string path)
-    {
-        if (!File.Exists(path))
-        {
-            return 0;
-        }
-        using var stream = new FileStream(path, FileMode.Open, FileAccess.Read, FileShare.ReadWrite);
-        return stream.Length;
-    }
 
     private void CloseQuietly()
     {
