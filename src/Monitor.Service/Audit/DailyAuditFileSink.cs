@@ -67,7 +67,7 @@ internal sealed class DailyAuditFileSink(FileLifecycleHooks? hooks) : ILogEventS
         if (_needsRepair && _path is not null)
         {
             // The file of the failed write (maybe yesterday's) first: no torn line may stay behind.
-            ExposureLogFileRepair.TruncateTo(_path, _goodLength);
+            PartialWriteCutBack.CutBackTo(_path, _goodLength);
         }
 
         _needsRepair = false;

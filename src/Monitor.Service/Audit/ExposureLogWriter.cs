@@ -3,6 +3,7 @@ using System.Text.RegularExpressions;
 using Serilog;
 using Serilog.Core;
 using Serilog.Events;
+using Monitor.Service.Storage;
 
 namespace Monitor.Service.Audit;
 
@@ -198,7 +199,7 @@ public sealed partial class ExposureLogWriter : IDisposable
     {
         try
         {
-            ExposureLogFileRepair.TruncateTo(repair.Path, repair.GoodLength);
+            PartialWriteCutBack.CutBackTo(repair.Path, repair.GoodLength);
         }
         catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
         {

@@ -1,11 +1,13 @@
 using MassTransit;
 using Microsoft.Extensions.Configuration;
 using Microsoft.Extensions.DependencyInjection;
+using Microsoft.Extensions.Diagnostics.HealthChecks;
 using Microsoft.Extensions.Options;
 using Monitor.Service.Audit;
 using Monitor.Service.Engine;
 using Monitor.Service.Journal;
 using Monitor.Service.Pipeline;
+using Monitor.Service.Storage;
 using Monitor.Service.Telemetry;
 
 namespace Monitor.Service.Hosting;
@@ -32,6 +34,10 @@ public static class ServiceRegistration
         services.AddSingleton<IValidateOptions<TransportOptions>, TransportOptionsValidator>();
         services.AddOptions<ExposureLogOptions>().Bind(configuration.GetSection(ExposureLogOptions.SectionName)).ValidateOnStart();
         services.AddSingleton<IValidateOptions<ExposureLogOptions>>(new ExposureLogOptionsValidator());
+        services.AddOptions<StorageOptions>().Bind(configuration.GetSection(StorageOptions.SectionName)).ValidateOnStart();
+        services.AddSingleton<IValidateOptions<StorageOptions>>(new StorageOptionsValidator());
+        services.AddOptions<HealthOptions>().Bind(configuration.GetSection(HealthOptions.SectionName)).ValidateOnStart();
+        services.AddSingleton<IValidateOptions<HealthOptions>>(new HealthOptionsValidator());
 
         services.AddMetrics();
         services.AddSingleton<MonitorMetrics>();
@@ -51,6 +57,8 @@ public static class ServiceRegistration
         services.AddSingleton(sp => sp.GetRequiredService<EngineRecovery>().Engine);
         services.AddSingleton(sp => new TradeJournal(sp.GetRequiredService<IOptions<JournalOptions>>().Value, sp.GetRequiredService<TimeProvider>()));
         services.AddSingleton(sp => new ExposureLogWriter(sp.GetRequiredService<IOptions<ExposureLogOptions>>().Value, sp.GetRequiredService<TimeProvider>()));
+        // Every exposure log and journal append of the pipeline runs through the gate: a storage failure stalls, never faults a message.
+        services.AddSingleton<StorageFaultGate>();
         services.AddSingleton<RiskPipeline>();
 
         var transport = configuration.GetSection(TransportOptions.SectionName).Get<TransportOptions>() ?? new TransportOptions();
@@ -84,6 +92,9 @@ public static class ServiceRegistration
             o.WaitUntilStarted = true;
             o.StartTimeout = TimeSpan.FromSeconds(60);
             o.StopTimeout = TimeSpan.FromSeconds(30);
+            // A consumer held by a failing disk never finishes by itself: at stop its token is cancelled after this wait, the
+            // storage gate gives up with that token, and MassTransit returns the message to its queue unacknowledged.
+            o.ConsumerStopTimeout = TimeSpan.FromSeconds(10);
         });
 
         // Started after the bus, in this order: opening curves, then the refit loop and the snapshots.
@@ -94,7 +105,15 @@ public static class ServiceRegistration
         services.AddHealthChecks()
             .AddCheck<ExposureLogHealthCheck>("exposure-log")
             .AddCheck<CurveHealthCheck>("curves")
-            .AddCheck<JournalHealthCheck>("trade-journal");
+            .AddCheck<JournalHealthCheck>("trade-journal")
+            .AddCheck<StorageHealthCheck>("storage");
+        // No HTTP endpoint: the reports are logged on each status change and written to Health:StatusFile when set.
+        services.AddSingleton<IHealthCheckPublisher, HealthStatusFilePublisher>();
+        services.AddOptions<HealthCheckPublisherOptions>().Configure<IOptions<HealthOptions>>((publisher, health) =>
+        {
+            publisher.Delay = TimeSpan.FromSeconds(1);
+            publisher.Period = health.Value.Period;
+        });
         return services;
     }
 

@@ -12,8 +12,9 @@ namespace Monitor.Service.Journal;
 /// and then fsyncs once (<c>FileStream.Flush(true)</c>) for the whole batch, so concurrent callers share a flush.
 /// <see cref="AppendTradeAsync"/> completes only after its record is on the disk; <see cref="AppendQuote"/> does
 /// not wait (quotes are refreshed all day) but keeps file order with the trades. A failed write fails every
-/// trade of its batch with <see cref="JournalWriteException"/>, makes the journal unhealthy until a later write
-/// succeeds, and is cut back (no partial line stays) before the next write. One journal per folder.
+/// trade of its batch with <see cref="JournalWriteException"/> (the callers retry them), keeps its quotes for the next
+/// batch (retried every second meanwhile), makes the journal unhealthy until a later write succeeds, and is cut back
+/// (no partial line stays) before the next write. One journal per folder.
 /// </summary>
 public sealed class TradeJournal : IAsyncDisposable
 {
@@ -23,6 +24,7 @@ public sealed class TradeJournal : IAsyncDisposable
     private readonly TimeProvider _time;
     private readonly Channel<Entry> _queue = Channel.CreateUnbounded<Entry>(new UnboundedChannelOptions { SingleReader = true });
     private readonly List<JournalProblem> _repairs = [];
+    private readonly List<Entry> _carried = [];
     private readonly Task _loop;
     private FileStream? _stream;
     private string? _path;
@@ -32,6 +34,9 @@ public sealed class TradeJournal : IAsyncDisposable
     private volatile string? _lastError;
     private long _flushes;
     private long _records;
+
+    /// <summary>How long quotes of a failed batch wait for a retry when no other append comes.</summary>
+    internal static readonly TimeSpan QuoteRetryDelay = TimeSpan.FromSeconds(1);
 
     public TradeJournal(JournalOptions options, TimeProvider time)
     {
@@ -117,14 +122,42 @@ public sealed class TradeJournal : IAsyncDisposable
     {
         var batch = new List<Entry>(_maxBatch);
         var reader = _queue.Reader;
-        while (await reader.WaitToReadAsync().ConfigureAwait(false))
+        while (true)
         {
+            if (_carried.Count == 0)
+            {
+                if (!await reader.WaitToReadAsync().ConfigureAwait(false))
+                {
+                    return;
+                }
+            }
+            else if (!await WaitOrRetryAsync(reader).ConfigureAwait(false))
+            {
+                WriteBatch([.. _carried]); // closing with quotes still unwritten: one last try
+                return;
+            }
             batch.Clear();
+            batch.AddRange(_carried);
+            _carried.Clear();
             while (batch.Count < _maxBatch && reader.TryRead(out var entry))
             {
                 batch.Add(entry);
             }
             WriteBatch(batch);
+        }
+    }
+
+    /// <summary>With quotes of a failed batch waiting: wakes on the next append or after <see cref="QuoteRetryDelay"/>; false once the queue is closed.</summary>
+    private async Task<bool> WaitOrRetryAsync(ChannelReader<Entry> reader)
+    {
+        using var retry = new CancellationTokenSource(QuoteRetryDelay, _time);
+        try
+        {
+            return await reader.WaitToReadAsync(retry.Token).ConfigureAwait(false);
+        }
+        catch (OperationCanceledException) when (retry.IsCancellationRequested)
+        {
+            return !reader.Completion.IsCompleted;
         }
     }
 
@@ -160,6 +193,9 @@ public sealed class TradeJournal : IAsyncDisposable
             {
                 entry.Done?.TrySetException(failure);
             }
+            // Trades fail to their callers, who retry them; quotes have no caller waiting, so the journal keeps them and
+            // writes them first with the next batch (file order stays the order of the appends).
+            _carried.AddRange(batch.Where(e => e.Done is null));
             return;
         }
         _seq = seq;
@@ -183,7 +219,7 @@ public sealed class TradeJournal : IAsyncDisposable
         if (_needsRepair && _path is not null && File.Exists(_path))
         {
             // The file of the failed write first (maybe yesterday's): no partial line may stay behind.
-            TruncateTo(_path, _goodLength);
+            PartialWriteCutBack.CutBackTo(_path, _goodLength);
         }
         if (!string.Equals(path, _path, StringComparison.Ordinal))
         {
@@ -191,7 +227,7 @@ public sealed class TradeJournal : IAsyncDisposable
             var existing = JournalReplay.ReadFile(path);
             if (existing.CompleteLength < FileLength.Of(path))
             {
-                TruncateTo(path, existing.CompleteLength);
+                PartialWriteCutBack.CutBackTo(path, existing.CompleteLength);
                 lock (_repairs)
                 {
                     _repairs.AddRange(existing.Problems.Where(p => p.Kind == JournalProblemKind.TornTail));
@@ -204,17 +240,6 @@ public sealed class TradeJournal : IAsyncDisposable
         _stream = new FileStream(path, FileMode.Append, FileAccess.Write, FileShare.Read, bufferSize: 64 * 1024);
         _needsRepair = false;
     }
-
-    private static void TruncateTo(string path, long length)
-    {
-        using var stream = new FileStream(path, FileMode.Open, FileAccess.ReadWrite, FileShare.Read);
-        if (stream.Length > length)
-        {
-            stream.SetLength(length);
-            stream.Flush(flushToDisk: true);
-        }
-    }
-
 
     private void CloseQuietly()
     {

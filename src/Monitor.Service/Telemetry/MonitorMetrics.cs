@@ -22,6 +22,8 @@ public sealed class MonitorMetrics : IDisposable
         ExposureDuration = _meter.CreateHistogram<double>("monitor.exposure.duration", unit: "ms", description: "Time to recompute the books after a change.");
         QueueLag = _meter.CreateHistogram<double>("monitor.queue.lag", unit: "ms", description: "Processing time minus the message's event time.");
         StatusChanges = _meter.CreateCounter<long>("monitor.limit.status.changes", unit: "{event}", description: "Limit status changes published.");
+        StorageWriteFailures = _meter.CreateCounter<long>("monitor.storage.write.failures", unit: "{attempt}", description: "Durable writes that failed for a storage reason and are retried, by store.");
+        StoresFailing = _meter.CreateUpDownCounter<int>("monitor.storage.failing", unit: "{store}", description: "Stores (exposure log, trade journal) whose writes are failing now; the pipeline stalls while above 0.");
     }
 
     public Counter<long> MessagesConsumed { get; }
@@ -35,6 +37,10 @@ public sealed class MonitorMetrics : IDisposable
     public Histogram<double> QueueLag { get; }
 
     public Counter<long> StatusChanges { get; }
+
+    public Counter<long> StorageWriteFailures { get; }
+
+    public UpDownCounter<int> StoresFailing { get; }
 
     public void Dispose() => _meter.Dispose();
 }

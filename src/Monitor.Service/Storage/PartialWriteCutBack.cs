@@ -1,14 +1,18 @@
-namespace Monitor.Service.Audit;
+namespace Monitor.Service.Storage;
 
 /// <summary>
-/// Cuts a day file back to the length it had after its last good record: removes the torn bytes a
-/// failed write (full disk, crash) may have left, so the next line starts on a line of its own.
+/// Cuts an append-only file (exposure log, trade journal) back to its length after the last good record:
+/// removes the partial line a failed write (full disk, crash) left, so that the retried record starts on a
+/// line of its own and the file never holds a torn line between two good ones.
 /// </summary>
-internal static class ExposureLogFileRepair
+internal static class PartialWriteCutBack
 {
-    /// <summary>Truncates to <paramref name="goodLength"/>; returns the bytes removed (empty when none).</summary>
-    /// <exception cref="IOException">The file is shorter than <paramref name="goodLength"/>: records were removed behind our back.</exception>
-    public static byte[] TruncateTo(string path, long goodLength)
+    /// <summary>Truncates to <paramref name="goodLength"/> and fsyncs; returns the bytes removed (empty when none).</summary>
+    /// <exception cref="IOException">
+    /// The file is shorter than <paramref name="goodLength"/>, or missing while records were written to it: records were
+    /// removed behind the writer's back (the message names the path and both lengths). Also any I/O failure of the cut.
+    /// </exception>
+    public static byte[] CutBackTo(string path, long goodLength)
     {
         if (!File.Exists(path))
         {
