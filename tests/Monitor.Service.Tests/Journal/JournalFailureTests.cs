@@ -1,3 +1,4 @@
+using Monitor.Analytics.Market;
 using Microsoft.Extensions.Diagnostics.HealthChecks;
 using Monitor.Service.Engine;
 using Monitor.Service.Journal;
@@ -93,6 +94,33 @@ public sealed class JournalFailureTests
         Assert.Empty(next.Problems);
         Assert.Equal(["T-2"], next.Trades.Select(t => t.TradeId));
         Assert.Equal(1, next.LastSeq);
+    }
+
+    [Fact]
+    public async Task Quotes_of_a_failed_batch_are_kept_and_written_once_the_folder_is_writable()
+    {
+        using var folder = new TempFolder();
+        var dayPath = JournalFiles.PathOf(folder.Path, Day);
+        Directory.CreateDirectory(dayPath); // no caller waits on a quote: the journal itself must keep it through the failure
+        await using var journal = new TradeJournal(new JournalOptions { Folder = folder.Path }, new ManualClock(Now));
+        var quote = new BondQuote("VGB-2030-08", Now.AddMinutes(-5), 98.1, 98.2, null, null, "feed-a");
+
+        journal.AppendQuote(quote);
+        var waited = System.Diagnostics.Stopwatch.StartNew();
+        while (journal.IsHealthy)
+        {
+            Assert.True(waited.Elapsed < TimeSpan.FromSeconds(30), "the quote's batch never failed"); // a safety net, not a speed check
+            await Task.Delay(10);
+        }
+        Directory.Delete(dayPath);
+        await journal.AppendTradeAsync(T("T-1"));
+
+        var contents = JournalReplay.Read(folder.Path, Day);
+        Assert.Empty(contents.Problems);
+        Assert.Equal(["T-1"], contents.Trades.Select(t => t.TradeId));
+        Assert.Equal(quote, Assert.Single(contents.LatestQuotes).Value);
+        Assert.Equal(2, contents.LastSeq);
+        Assert.True(journal.IsHealthy);
     }
 
     private static TradeInput T(string id) => Trade(id, 1, TradeAction.New, "RATES-CORE", "VGB-2030-08", 1e6);
