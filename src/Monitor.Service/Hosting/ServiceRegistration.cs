@@ -51,6 +51,8 @@ public static class ServiceRegistration
         services.AddSingleton(sp => sp.GetRequiredService<EngineRecovery>().Engine);
         services.AddSingleton(sp => new TradeJournal(sp.GetRequiredService<IOptions<JournalOptions>>().Value, sp.GetRequiredService<TimeProvider>()));
         services.AddSingleton(sp => new ExposureLogWriter(sp.GetRequiredService<IOptions<ExposureLogOptions>>().Value, sp.GetRequiredService<TimeProvider>()));
+        services.AddSingleton<QuoteInbox>();
+        services.AddSingleton<EventOutbox>();
         services.AddSingleton<RiskPipeline>();
 
         var transport = configuration.GetSection(TransportOptions.SectionName).Get<TransportOptions>() ?? new TransportOptions();
@@ -86,7 +88,9 @@ public static class ServiceRegistration
             o.StopTimeout = TimeSpan.FromSeconds(30);
         });
 
-        // Started after the bus, in this order: opening curves, then the refit loop and the snapshots.
+        // Started after the bus, in this order: the outbox, opening curves, then the refit loop and the snapshots.
+        // Hosted services stop in reverse order, the bus last: the outbox drains while the broker is still connected.
+        services.AddHostedService(sp => sp.GetRequiredService<EventOutbox>());
         services.AddHostedService<StartOfDayService>();
         services.AddHostedService<CurveRefitWorker>();
         services.AddHostedService<SnapshotWorker>();
@@ -94,7 +98,8 @@ public static class ServiceRegistration
         services.AddHealthChecks()
             .AddCheck<ExposureLogHealthCheck>("exposure-log")
             .AddCheck<CurveHealthCheck>("curves")
-            .AddCheck<JournalHealthCheck>("trade-journal");
+            .AddCheck<JournalHealthCheck>("trade-journal")
+            .AddCheck<EventOutboxHealthCheck>("event-outbox");
         return services;
     }
 
