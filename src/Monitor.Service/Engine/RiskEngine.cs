@@ -1,3 +1,4 @@
+using System.Collections.Concurrent;
 using System.Diagnostics;
 using System.Globalization;
 using Monitor.Analytics.Curves;
@@ -16,10 +17,13 @@ namespace Monitor.Service.Engine;
 /// Every input either changes state and says what changed (an <see cref="EngineResult"/>), or throws a
 /// <see cref="MessageRejectedException"/> before touching anything. Not thread-safe: one caller at a time.
 /// All state is held by the instance (no static state), so books can later be split across instances.
+/// The one exception to "one caller at a time" is <see cref="PriceQuote"/>, which reads only the instruments
+/// (a concurrent map) and the settings, so quote consumers can check and price quotes while a refit runs.
 /// </summary>
 public sealed class RiskEngine
 {
-    private readonly Dictionary<string, Bond> _instruments = new(StringComparer.Ordinal);
+    // Concurrent so PriceQuote can read it from a consumer thread while the engine's owner writes it.
+    private readonly ConcurrentDictionary<string, Bond> _instruments = new(StringComparer.Ordinal);
     private readonly Dictionary<string, IReadOnlyList<CashFlow>> _flows = new(StringComparer.Ordinal);
     private readonly Dictionary<string, CurveState> _curves = new(StringComparer.Ordinal);
     private readonly Dictionary<string, BookState> _books = new(StringComparer.Ordinal);
@@ -77,14 +81,31 @@ public sealed class RiskEngine
     }
 
     /// <summary>Keeps the quote as the newest for its bond and marks its curve for a refit. Returns the curve key.</summary>
-    public string AcceptQuote(BondQuote quote, DateTimeOffset now)
+    public string AcceptQuote(BondQuote quote, DateTimeOffset now) => StoreQuote(PriceQuote(quote, now));
+
+    /// <summary>
+    /// Checks a quote and prices it for the fitter without changing anything; safe to call from any thread while
+    /// the engine's owner works. Throws <see cref="MessageRejectedException"/> naming the field for bad input.
+    /// </summary>
+    public PricedQuote PriceQuote(BondQuote quote, DateTimeOffset now)
     {
         ArgumentNullException.ThrowIfNull(quote);
         var bond = RequireInstrument(quote.InstrumentId, "instrumentId");
         CheckEventTime("quoteTime", quote.QuoteTime, now);
-        var priced = Price(bond, quote);
+        return Price(bond, quote);
+    }
+
+    /// <summary>Keeps a priced quote as the newest for its bond and marks its curve for a refit. Returns the curve key.</summary>
+    public string StoreQuote(PricedQuote priced)
+    {
+        ArgumentNullException.ThrowIfNull(priced);
+        var bond = RequireInstrument(priced.Bond.Id, "instrumentId");
+        if (!ReferenceEquals(bond, priced.Bond))
+        {
+            priced = Price(bond, priced.Quote); // the bond was redefined after the quote was priced: price on today's terms
+        }
         var curve = _curves[CurveKey.Normalize(bond.SpreadGroup)];
-        if (curve.LatestQuotes.TryGetValue(bond.Id, out var previous) && previous.Quote.QuoteTime > quote.QuoteTime)
+        if (curve.LatestQuotes.TryGetValue(bond.Id, out var previous) && previous.Quote.QuoteTime > priced.Quote.QuoteTime)
         {
             return curve.Key; // an older quote arriving late never replaces a newer one
         }

@@ -25,8 +25,17 @@ public sealed class MonitorOptions
     /// <summary>Model of the government curve: NelsonSiegel (default) or Svensson. Spread curves are always Nelson-Siegel.</summary>
     public CurveModel BaseCurveModel { get; set; } = CurveModel.NelsonSiegel;
 
-    /// <summary>How long the refit loop waits after the first quote of a burst before fitting. Default 20 ms.</summary>
+    /// <summary>
+    /// Shortest time between the starts of two refits. A quote after a quiet spell is fitted at once; during a burst
+    /// the quotes that arrive within the window are fitted together on the latest of each. Default 20 ms.
+    /// </summary>
     public TimeSpan ConflationWindow { get; set; } = TimeSpan.FromMilliseconds(20);
+
+    /// <summary>
+    /// Book figures (BookExposuresUpdated) are sent at most once per book per interval, the newest figures winning;
+    /// 0 sends them after every change. Limit and curve events are never held back. Default 1 s.
+    /// </summary>
+    public TimeSpan BookEventInterval { get; set; } = TimeSpan.FromSeconds(1);
 
     /// <summary>Period of book snapshots in the exposure log; 0 turns them off. Default 5 minutes.</summary>
     public TimeSpan SnapshotInterval { get; set; } = TimeSpan.FromMinutes(5);

@@ -18,6 +18,7 @@ public sealed class MonitorOptionsValidator : IValidateOptions<MonitorOptions>
             failures.Add($"Monitor:BaseCurveModel: '{options.BaseCurveModel}' is not a model; use NelsonSiegel or Svensson.");
         }
         Range(failures, "Monitor:ConflationWindow", options.ConflationWindow, TimeSpan.Zero, TimeSpan.FromSeconds(10), "e.g. 00:00:00.020");
+        Range(failures, "Monitor:BookEventInterval", options.BookEventInterval, TimeSpan.Zero, TimeSpan.FromMinutes(10), "e.g. 00:00:01, or 0 to send book figures after every change");
         Range(failures, "Monitor:SnapshotInterval", options.SnapshotInterval, TimeSpan.Zero, TimeSpan.FromDays(1), "e.g. 00:05:00, or 0 to turn snapshots off");
         Range(failures, "Monitor:StaleQuoteAfter", options.StaleQuoteAfter, TimeSpan.FromSeconds(1), TimeSpan.FromDays(7), "e.g. 04:00:00");
         Positive(failures, "Monitor:BaseMaxRmseBp", options.BaseMaxRmseBp);

@@ -59,6 +59,8 @@ public static class ServiceRegistration
         services.AddSingleton(sp => new ExposureLogWriter(sp.GetRequiredService<IOptions<ExposureLogOptions>>().Value, sp.GetRequiredService<TimeProvider>()));
         // Every exposure log and journal append of the pipeline runs through the gate: a storage failure stalls, never faults a message.
         services.AddSingleton<StorageFaultGate>();
+        services.AddSingleton<QuoteInbox>();
+        services.AddSingleton<EventOutbox>();
         services.AddSingleton<RiskPipeline>();
 
         var transport = configuration.GetSection(TransportOptions.SectionName).Get<TransportOptions>() ?? new TransportOptions();
@@ -97,7 +99,9 @@ public static class ServiceRegistration
             o.ConsumerStopTimeout = TimeSpan.FromSeconds(10);
         });
 
-        // Started after the bus, in this order: opening curves, then the refit loop and the snapshots.
+        // Started after the bus, in this order: the outbox, opening curves, then the refit loop and the snapshots.
+        // Hosted services stop in reverse order, the bus last: the outbox drains while the broker is still connected.
+        services.AddHostedService(sp => sp.GetRequiredService<EventOutbox>());
         services.AddHostedService<StartOfDayService>();
         services.AddHostedService<CurveRefitWorker>();
         services.AddHostedService<SnapshotWorker>();
@@ -106,6 +110,7 @@ public static class ServiceRegistration
             .AddCheck<ExposureLogHealthCheck>("exposure-log")
             .AddCheck<CurveHealthCheck>("curves")
             .AddCheck<JournalHealthCheck>("trade-journal")
+            .AddCheck<EventOutboxHealthCheck>("event-outbox")
             .AddCheck<StorageHealthCheck>("storage");
         // No HTTP endpoint: the reports are logged on each status change and written to Health:StatusFile when set.
         services.AddSingleton<IHealthCheckPublisher, HealthStatusFilePublisher>();

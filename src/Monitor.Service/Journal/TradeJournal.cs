@@ -100,6 +100,20 @@ public sealed class TradeJournal : IAsyncDisposable
         return new ValueTask(cancellationToken.CanBeCanceled ? done.Task.WaitAsync(cancellationToken) : done.Task);
     }
 
+    /// <summary>
+    /// Completes once everything queued before it is fsynced, quotes kept from a failed batch included; throws
+    /// <see cref="JournalWriteException"/> when that write fails. Lets a quote consumer wait out a failing journal.
+    /// </summary>
+    public Task FlushAsync(CancellationToken cancellationToken = default)
+    {
+        var done = new TaskCompletionSource(TaskCreationOptions.RunContinuationsAsynchronously);
+        if (!_queue.Writer.TryWrite(new Entry(null, null, done)))
+        {
+            throw new ObjectDisposedException(nameof(TradeJournal));
+        }
+        return cancellationToken.CanBeCanceled ? done.Task.WaitAsync(cancellationToken) : done.Task;
+    }
+
     /// <summary>Queues a quote without waiting: it is written in order with the trades and on disk at the next fsync.</summary>
     public void AppendQuote(BondQuote quote)
     {
@@ -174,11 +188,15 @@ public sealed class TradeJournal : IAsyncDisposable
             var durable = false;
             foreach (var entry in batch)
             {
+                durable |= entry.Done is not null;
+                if (entry.Trade is null && entry.Quote is null)
+                {
+                    continue; // a flush request: no line of its own
+                }
                 seq++;
                 var line = entry.Trade is { } trade ? JournalLine.Trade(seq, now, trade) : JournalLine.Quote(seq, now, entry.Quote!);
                 _stream!.Write(line);
                 written += line.Length;
-                durable |= entry.Done is not null;
             }
             _stream!.Flush(flushToDisk: durable);
             Interlocked.Increment(ref _flushes);
@@ -198,9 +216,9 @@ public sealed class TradeJournal : IAsyncDisposable
             _carried.AddRange(batch.Where(e => e.Done is null));
             return;
         }
+        Interlocked.Add(ref _records, seq - _seq);
         _seq = seq;
         _goodLength += written;
-        Interlocked.Add(ref _records, batch.Count);
         _lastError = null;
         foreach (var entry in batch)
         {

@@ -22,6 +22,7 @@ public sealed partial class StorageFaultGate
 
     private readonly Lock _sync = new();
     private readonly Dictionary<string, StorageFault> _faults = new(StringComparer.Ordinal);
+    private TaskCompletionSource? _writable;
     private readonly StorageOptions _options;
     private readonly TimeProvider _time;
     private readonly ILogger<StorageFaultGate> _logger;
@@ -53,6 +54,26 @@ public sealed partial class StorageFaultGate
     public IReadOnlyList<StorageFault> Faults
     {
         get { lock (_sync) { return _faults.Values.OrderBy(f => f.Store, StringComparer.Ordinal).ToList(); } }
+    }
+
+    /// <summary>
+    /// Completes at once while no store is failing, else when the last failing store has written again. Work that writes
+    /// nothing durable itself (a quote consumer) waits here, so that its message is not acknowledged during an outage.
+    /// </summary>
+    /// <exception cref="OperationCanceledException">Cancelled (carrying <paramref name="cancellationToken"/>).</exception>
+    public Task WhenWritableAsync(CancellationToken cancellationToken)
+    {
+        Task waiter;
+        lock (_sync)
+        {
+            if (_faults.Count == 0)
+            {
+                return Task.CompletedTask;
+            }
+            _writable ??= new TaskCompletionSource(TaskCreationOptions.RunContinuationsAsynchronously);
+            waiter = _writable.Task;
+        }
+        return waiter.WaitAsync(cancellationToken);
     }
 
     /// <summary>Runs <paramref name="write"/> until it succeeds; storage failures are retried, anything else is thrown at once.</summary>
@@ -139,13 +160,19 @@ public sealed partial class StorageFaultGate
     private void RecordSuccess(string store)
     {
         StorageFault? ended;
+        TaskCompletionSource? writable = null;
         lock (_sync)
         {
             if (!_faults.Remove(store, out ended))
             {
                 return;
             }
+            if (_faults.Count == 0)
+            {
+                (writable, _writable) = (_writable, null);
+            }
         }
+        writable?.TrySetResult();
         _metrics?.StoresFailing.Add(-1);
         LogRecovered(store, (_time.GetUtcNow() - ended.Since).TotalSeconds, ended.FailedAttempts);
     }

@@ -58,6 +58,7 @@ public sealed class ServiceUnderTest : IAsyncDisposable
         ["Monitor:StaleQuoteAfter"] = "12:00:00",
         ["Monitor:ConflationWindow"] = Window.ToString("c", System.Globalization.CultureInfo.InvariantCulture),
         ["Monitor:SnapshotInterval"] = "00:00:00",
+        ["Monitor:BookEventInterval"] = "00:00:00",
         ["ExposureLog:Folder"] = logFolder,
         ["ExposureLog:FlushToDisk"] = "false",
     };
@@ -100,18 +101,19 @@ public sealed class ServiceUnderTest : IAsyncDisposable
         await RefitAsync();
     }
 
-    /// <summary>Advances the fake clock by the conflation window until the refit loop has fitted every waiting curve.</summary>
+    /// <summary>Advances the fake clock by the conflation window until the refit loop has fitted every waiting curve and its events are out.</summary>
     public async Task RefitAsync()
     {
         await WaitUntilAsync(async () =>
         {
-            if (await Pipeline.ReadAsync(e => e.DirtyCurves().Count) == 0)
+            if (await Pipeline.WaitingRefitsAsync() == 0)
             {
                 return true;
             }
             Time.Advance(Window);
             return false;
         }, "refit done");
+        await Pipeline.WhenPublishedAsync();
     }
 
     public async Task<TradeOutcome> TradeAsync(TradeBooked trade)
@@ -119,6 +121,7 @@ public sealed class ServiceUnderTest : IAsyncDisposable
         var before = Harness.Consumed.Select<TradeBooked>().Count();
         await Harness.Bus.Publish(trade);
         await WaitUntilAsync(() => Harness.Consumed.Select<TradeBooked>().Count() > before, "trade consumed");
+        await Pipeline.WhenPublishedAsync();
         return TradeOutcome.Applied;
     }
 

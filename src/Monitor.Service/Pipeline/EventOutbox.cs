@@ -1,0 +1,253 @@
+using System.Threading.Channels;
+using MassTransit;
+using Microsoft.Extensions.Hosting;
+using Microsoft.Extensions.Logging;
+using Microsoft.Extensions.Options;
+using Monitor.Contracts.V1;
+using Monitor.Service.Hosting;
+
+namespace Monitor.Service.Pipeline;
+
+/// <summary>
+/// Publishes the service's events outside the pipeline's lock, in the order the changes were made. The pipeline
+/// writes a change to the exposure log, then hands its events here and moves on; one publisher drains the queue,
+/// sending one change's events together and the next change's only after the broker confirmed them all.
+/// A publish that fails (the broker is down) is retried with a growing pause until it succeeds, and the outbox
+/// reports unhealthy meanwhile; the queue is bounded, so a long outage eventually holds the pipeline (and with it
+/// the acknowledgements of inbound messages) instead of growing without end.
+/// Book figures are conflated: within <see cref="MonitorOptions.BookEventInterval"/> only each book's newest
+/// <see cref="BookExposuresUpdated"/> is sent, so a refit of the government curve does not send every book's
+/// figures tens of times a second. Limit and curve events are never conflated.
+/// </summary>
+public sealed partial class EventOutbox : BackgroundService
+{
+    /// <summary>Changes (not messages) the queue holds before the pipeline waits: minutes of a busy day's changes.</summary>
+    public const int Capacity = 10_000;
+
+    private static readonly TimeSpan FirstRetry = TimeSpan.FromMilliseconds(250);
+    private static readonly TimeSpan LongestRetry = TimeSpan.FromSeconds(5);
+
+    private readonly IBus _bus;
+    private readonly TimeProvider _time;
+    private readonly ILogger<EventOutbox> _logger;
+    private readonly TimeSpan _bookInterval;
+    private readonly Channel<IReadOnlyList<object>> _queue = Channel.CreateBounded<IReadOnlyList<object>>(
+        new BoundedChannelOptions(Capacity) { SingleReader = true, FullMode = BoundedChannelFullMode.Wait });
+    private readonly Lock _booksSync = new();
+    private Dictionary<string, BookExposuresUpdated> _pendingBooks = new(StringComparer.Ordinal);
+    private long _backlog;
+    private long _published;
+    private string? _lastError;
+    private DateTimeOffset? _failingSince;
+
+    public EventOutbox(IBus bus, IOptions<MonitorOptions> options, TimeProvider time, ILogger<EventOutbox> logger)
+    {
+        ArgumentNullException.ThrowIfNull(options);
+        _bus = bus;
+        _time = time;
+        _logger = logger;
+        _bookInterval = options.Value.BookEventInterval;
+    }
+
+    /// <summary>Changes queued and not yet confirmed by the broker (book figures waiting for their interval not counted).</summary>
+    public long Backlog => Interlocked.Read(ref _backlog);
+
+    /// <summary>Messages the broker has confirmed since start.</summary>
+    public long Published => Interlocked.Read(ref _published);
+
+    /// <summary>The last publish failure while publishing is failing; null when the last publish went through.</summary>
+    public string? LastError => Volatile.Read(ref _lastError);
+
+    public bool IsHealthy => LastError is null;
+
+    /// <summary>
+    /// Queues one change's events (in order after every earlier change's) and its books' new figures. Waits only when
+    /// the queue is full, which holds the caller's lock: back-pressure during a long broker outage.
+    /// </summary>
+    public ValueTask EnqueueAsync(IReadOnlyList<object> events, IReadOnlyList<BookExposuresUpdated> books, CancellationToken cancellationToken)
+    {
+        ArgumentNullException.ThrowIfNull(events);
+        ArgumentNullException.ThrowIfNull(books);
+        if (books.Count > 0 && _bookInterval > TimeSpan.Zero)
+        {
+            lock (_booksSync)
+            {
+                foreach (var book in books)
+                {
+                    _pendingBooks[book.Book] = book;
+                }
+            }
+        }
+        else if (books.Count > 0)
+        {
+            events = [.. events, .. books];
+        }
+        return events.Count == 0 ? ValueTask.CompletedTask : WriteAsync(events, cancellationToken);
+    }
+
+    /// <summary>Completes when every change queued so far has been published (book figures waiting for their interval included).</summary>
+    public async Task WhenPublishedAsync(CancellationToken cancellationToken)
+    {
+        await QueuePendingBooksAsync(cancellationToken).ConfigureAwait(false);
+        while (Backlog > 0)
+        {
+            await Task.Delay(TimeSpan.FromMilliseconds(5), cancellationToken).ConfigureAwait(false);
+        }
+    }
+
+    public override async Task StopAsync(CancellationToken cancellationToken)
+    {
+        // Stopped before the bus (registered after it): what is queued goes out while the broker connection is still up.
+        try
+        {
+            await WhenPublishedAsync(cancellationToken).ConfigureAwait(false);
+        }
+        catch (OperationCanceledException)
+        {
+            LogUnpublishedAtStop(Backlog);
+        }
+        await base.StopAsync(cancellationToken).ConfigureAwait(false);
+    }
+
+    protected override async Task ExecuteAsync(CancellationToken stoppingToken)
+    {
+        var books = _bookInterval > TimeSpan.Zero ? FlushBooksPeriodicallyAsync(stoppingToken) : Task.CompletedTask;
+        try
+        {
+            await foreach (var change in _queue.Reader.ReadAllAsync(stoppingToken).ConfigureAwait(false))
+            {
+                await PublishAsync(change, stoppingToken).ConfigureAwait(false);
+                Interlocked.Decrement(ref _backlog);
+            }
+        }
+        catch (OperationCanceledException) when (stoppingToken.IsCancellationRequested)
+        {
+            // Stopping: StopAsync has already waited for the queue to drain as long as the host allowed.
+        }
+        await books.ConfigureAwait(false);
+    }
+
+    private ValueTask WriteAsync(IReadOnlyList<object> events, CancellationToken cancellationToken)
+    {
+        Interlocked.Increment(ref _backlog);
+        if (_queue.Writer.TryWrite(events))
+        {
+            return ValueTask.CompletedTask;
+        }
+        return WaitToWriteAsync(events, cancellationToken);
+    }
+
+    private async ValueTask WaitToWriteAsync(IReadOnlyList<object> events, CancellationToken cancellationToken)
+    {
+        LogQueueFull(Capacity);
+        try
+        {
+            await _queue.Writer.WriteAsync(events, cancellationToken).ConfigureAwait(false);
+        }
+        catch
+        {
+            Interlocked.Decrement(ref _backlog);
+            throw;
+        }
+    }
+
+    private async Task FlushBooksPeriodicallyAsync(CancellationToken stoppingToken)
+    {
+        using var timer = new PeriodicTimer(_bookInterval, _time);
+        try
+        {
+            while (await timer.WaitForNextTickAsync(stoppingToken).ConfigureAwait(false))
+            {
+                await QueuePendingBooksAsync(stoppingToken).ConfigureAwait(false);
+            }
+        }
+        catch (OperationCanceledException) when (stoppingToken.IsCancellationRequested)
+        {
+        }
+    }
+
+    private ValueTask QueuePendingBooksAsync(CancellationToken cancellationToken)
+    {
+        Dictionary<string, BookExposuresUpdated> due;
+        lock (_booksSync)
+        {
+            if (_pendingBooks.Count == 0)
+            {
+                return ValueTask.CompletedTask;
+            }
+            due = _pendingBooks;
+            _pendingBooks = new Dictionary<string, BookExposuresUpdated>(due.Count, StringComparer.Ordinal);
+        }
+        return WriteAsync([.. due.Values], cancellationToken);
+    }
+
+    /// <summary>Publishes one change's messages together, retrying those the broker did not confirm until all are through.</summary>
+    private async Task PublishAsync(IReadOnlyList<object> messages, CancellationToken stoppingToken)
+    {
+        var waiting = messages;
+        var pause = FirstRetry;
+        while (true)
+        {
+            var sends = new Task[waiting.Count];
+            for (var i = 0; i < waiting.Count; i++)
+            {
+                sends[i] = _bus.Publish(waiting[i], waiting[i].GetType(), stoppingToken);
+            }
+            try
+            {
+                await Task.WhenAll(sends).ConfigureAwait(false);
+            }
+            catch (Exception ex) when (ex is not OperationCanceledException || !stoppingToken.IsCancellationRequested)
+            {
+                // Looked at per message below: some of the change's messages may have gone through.
+            }
+            var failed = new List<object>();
+            Exception? error = null;
+            for (var i = 0; i < sends.Length; i++)
+            {
+                if (sends[i].IsCompletedSuccessfully)
+                {
+                    Interlocked.Increment(ref _published);
+                }
+                else
+                {
+                    failed.Add(waiting[i]);
+                    error ??= sends[i].Exception?.GetBaseException();
+                }
+            }
+            if (failed.Count == 0)
+            {
+                if (_failingSince is { } since)
+                {
+                    LogPublishingRecovered(_time.GetUtcNow() - since);
+                    _failingSince = null;
+                    Volatile.Write(ref _lastError, null);
+                }
+                return;
+            }
+            stoppingToken.ThrowIfCancellationRequested();
+            var reason = error?.Message ?? "publish cancelled";
+            if (_failingSince is null)
+            {
+                _failingSince = _time.GetUtcNow();
+                LogPublishingFailed(failed.Count, reason);
+            }
+            Volatile.Write(ref _lastError, reason);
+            await Task.Delay(pause, _time, stoppingToken).ConfigureAwait(false);
+            pause = TimeSpan.FromTicks(Math.Min(pause.Ticks * 2, LongestRetry.Ticks));
+            waiting = failed;
+        }
+    }
+
+    [LoggerMessage(Level = LogLevel.Error, Message = "Publishing events failed ({Count} waiting): {Reason}; retrying until the broker confirms them")]
+    private partial void LogPublishingFailed(int count, string reason);
+
+    [LoggerMessage(Level = LogLevel.Information, Message = "Publishing events recovered after {Outage}")]
+    private partial void LogPublishingRecovered(TimeSpan outage);
+
+    [LoggerMessage(Level = LogLevel.Warning, Message = "The event queue is full ({Capacity} changes); the pipeline waits for the broker")]
+    private partial void LogQueueFull(int capacity);
+
+    [LoggerMessage(Level = LogLevel.Warning, Message = "Stopping with {Count} change(s) not published; their records are in the exposure log")]
+    private partial void LogUnpublishedAtStop(long count);
+}

@@ -1,0 +1,43 @@
+using System.Collections.Concurrent;
+using System.Reflection;
+using MassTransit;
+
+namespace Monitor.Service.Tests.Support;
+
+/// <summary>
+/// An <see cref="IBus"/> that records what is published through <c>Publish(object, Type, CancellationToken)</c> (the
+/// only member the outbox uses) and fails publishes while <see cref="Failing"/> is set, as a broker outage would.
+/// Any other member throws, so a change that starts using one shows up here.
+/// </summary>
+public class RecordingBus : DispatchProxy
+{
+    public ConcurrentQueue<object> Published { get; } = new();
+
+    public int Attempts => _attempts;
+
+    public volatile bool Failing;
+
+    private int _attempts;
+
+    public static (IBus Bus, RecordingBus Recorder) Create()
+    {
+        var bus = Create<IBus, RecordingBus>();
+        return (bus, (RecordingBus)(object)bus);
+    }
+
+    protected override object? Invoke(MethodInfo? targetMethod, object?[]? args)
+    {
+        var parameters = targetMethod?.GetParameters().Select(p => p.ParameterType).ToArray();
+        if (targetMethod?.Name == nameof(IPublishEndpoint.Publish) && parameters is [var m, var t, var c] && m == typeof(object) && t == typeof(Type) && c == typeof(CancellationToken))
+        {
+            Interlocked.Increment(ref _attempts);
+            if (Failing)
+            {
+                return Task.FromException(new InvalidOperationException("broker unreachable (test)"));
+            }
+            Published.Enqueue(args![0]!);
+            return Task.CompletedTask;
+        }
+        throw new NotSupportedException($"RecordingBus does not implement {targetMethod}");
+    }
+}
