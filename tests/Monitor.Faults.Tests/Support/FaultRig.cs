@@ -43,7 +43,8 @@ public sealed class FaultRig : IAsyncDisposable
         return rig;
     }
 
-    public ServiceProcess StartService() => ServiceProcess.Start(ConfigFile, Folder, BrokerAdmin.User, BrokerAdmin.Password);
+    public ServiceProcess StartService(IReadOnlyDictionary<string, string>? environment = null) =>
+        ServiceProcess.Start(ConfigFile, Folder, BrokerAdmin.User, BrokerAdmin.Password, environment);
 
     /// <summary>Waits until the service has declared its inbound queues (it is consuming).</summary>
     public static async Task WaitForQueuesAsync(Publisher publisher, ServiceProcess service, TimeSpan timeout)

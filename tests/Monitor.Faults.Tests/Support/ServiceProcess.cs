@@ -34,8 +34,11 @@ public sealed class ServiceProcess : IDisposable
         }
     }
 
-    /// <summary>Starts the service with broker credentials in the environment (never in the configuration file).</summary>
-    public static ServiceProcess Start(string configFile, string workingFolder, string brokerUser, string brokerPassword)
+    /// <summary>
+    /// Starts the service with broker credentials in the environment (never in the configuration file); <paramref name="environment"/>
+    /// adds variables, e.g. configuration overrides such as <c>Health__StatusFile</c>.
+    /// </summary>
+    public static ServiceProcess Start(string configFile, string workingFolder, string brokerUser, string brokerPassword, IReadOnlyDictionary<string, string>? environment = null)
     {
         var monitorDll = Path.Combine(AppContext.BaseDirectory, "monitor.dll");
         if (!File.Exists(monitorDll))
@@ -56,6 +59,10 @@ public sealed class ServiceProcess : IDisposable
         info.Environment["MONITOR_BROKER_USER"] = brokerUser;
         info.Environment["MONITOR_BROKER_PASSWORD"] = brokerPassword;
         info.Environment["DOTNET_CLI_TELEMETRY_OPTOUT"] = "1";
+        foreach (var (name, value) in environment ?? new Dictionary<string, string>())
+        {
+            info.Environment[name] = value;
+        }
         var process = new Process { StartInfo = info };
         var service = new ServiceProcess(process);
         process.OutputDataReceived += (_, e) => service.Append(e.Data);
