@@ -118,6 +118,7 @@ public static class ServiceRegistration
         {
             publisher.Delay = TimeSpan.FromSeconds(1);
             publisher.Period = health.Value.Period;
+            publisher.Timeout = TimeSpan.FromSeconds(10);
         });
         return services;
     }

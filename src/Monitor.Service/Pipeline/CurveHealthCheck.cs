@@ -7,9 +7,22 @@ namespace Monitor.Service.Pipeline;
 /// <summary>Healthy when the government curve is fitted, fresh, and its last refit passed the quality gate.</summary>
 public sealed class CurveHealthCheck(RiskPipeline pipeline, IOptions<MonitorOptions> options, TimeProvider time) : IHealthCheck
 {
+    private static readonly TimeSpan LockWait = TimeSpan.FromSeconds(2);
+
     public async Task<HealthCheckResult> CheckHealthAsync(HealthCheckContext context, CancellationToken cancellationToken = default)
     {
-        var curves = await pipeline.ReadAsync(e => e.Curves.Values.Select(c => (c.Label, c.Curve is not null, c.FittedAt, c.LastFitRejected, c.LastReport?.RmseBp)).ToArray(), cancellationToken).ConfigureAwait(false);
+        (string Label, bool Fitted, DateTimeOffset? FittedAt, bool Rejected, double? RmseBp)[] curves;
+        using var wait = CancellationTokenSource.CreateLinkedTokenSource(cancellationToken);
+        wait.CancelAfter(LockWait);
+        try
+        {
+            curves = await pipeline.ReadAsync(e => e.Curves.Values.Select(c => (c.Label, c.Curve is not null, c.FittedAt, c.LastFitRejected, c.LastReport?.RmseBp)).ToArray(), wait.Token).ConfigureAwait(false);
+        }
+        catch (OperationCanceledException) when (!cancellationToken.IsCancellationRequested)
+        {
+            // A write held through a storage outage keeps the engine's lock: report that rather than hold up the other checks.
+            return HealthCheckResult.Degraded($"the engine is busy: its lock was not free within {LockWait.TotalSeconds:0} s (a stalled write? see the storage check)");
+        }
         var now = time.GetUtcNow();
         var data = new Dictionary<string, object>(StringComparer.Ordinal);
         var problems = new List<string>();

@@ -219,14 +219,25 @@ public sealed class PipelineScenarioTests : IDisposable
         var writer = service.Services.GetRequiredService<Monitor.Service.Audit.ExposureLogWriter>();
         Task<double> Position() => service.Pipeline.ReadAsync(e => e.Books["RATES-CORE"].Positions.GetValueOrDefault("VGB-2034-11"));
 
-        Volatile.Write(ref fail.Value, true);
-        await service.Harness.Bus.Publish(ServiceUnderTest.Trade("L-1", 1, "new", "RATES-CORE", "VGB-2034-11", 3_000_000));
-        await ServiceUnderTest.WaitUntilAsync(() => !writer.IsHealthy, "a failed log write");
+        var storage = service.Services.GetRequiredService<Monitor.Service.Storage.StorageFaultGate>();
         Assert.Equal(0, await Position());
 
+        Volatile.Write(ref fail.Value, true);
+        await service.Harness.Bus.Publish(ServiceUnderTest.Trade("L-1", 1, "new", "RATES-CORE", "VGB-2034-11", 3_000_000));
+        await ServiceUnderTest.WaitUntilAsync(() => !writer.IsHealthy && storage.IsFailing, "a failed log write held by the storage gate");
+        // Held, not faulted: the write is retried under the engine's lock (so the books cannot be read meanwhile).
+        Assert.Equal(Monitor.Service.Storage.StorageFaultGate.ExposureLog, Assert.Single(storage.Faults).Store);
+
         Volatile.Write(ref fail.Value, false);
+        // The gate waits on the service's (fake) clock before each retry: move it until the held write goes through.
+        await ServiceUnderTest.WaitUntilAsync(() =>
+        {
+            service.Time.Advance(TimeSpan.FromSeconds(1));
+            return !storage.IsFailing;
+        }, "the held log write retried");
         await ServiceUnderTest.WaitUntilAsync(async () => await Position() != 0, "the retried trade applied");
         Assert.Equal(3_000_000, await Position());
+        Assert.False(storage.IsFailing);
         Assert.Equal(1, await service.Pipeline.ReadAsync(e => e.Trades.Count));
         Assert.False(await service.Harness.Published.Any<Fault<TradeBooked>>());
         // Exactly one complete trade record for L-1 in the exposure log (the failed attempt left at most a torn line).
