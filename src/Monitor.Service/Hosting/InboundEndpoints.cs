@@ -46,6 +46,10 @@ public static class InboundEndpoints
             e.UseRawJsonDeserializer(RawSerializerOptions.AnyMessageType, isDefault: false);
             e.DefaultContentType = new ContentType("application/json");
             e.ConcurrentMessageLimit = transport.ConcurrentMessageLimit;
+            // Storage failures never reach this policy: the pipeline holds a failing write (Storage/StorageFaultGate) until it
+            // succeeds, so the consumer does not return and its message stays unacknowledged. At shutdown the gate gives up
+            // with the consume context's own token, which this filter and MassTransit pass on as a cancelled delivery (the
+            // message returns to its queue), not as a fault for the error queue.
             e.UseMessageRetry(r =>
             {
                 r.Ignore<MessageRejectedException>();
