@@ -34,7 +34,7 @@ public sealed partial class EventOutbox : BackgroundService
     private readonly Channel<IReadOnlyList<object>> _queue = Channel.CreateBounded<IReadOnlyList<object>>(
         new BoundedChannelOptions(Capacity) { SingleReader = true, FullMode = BoundedChannelFullMode.Wait });
     private readonly Lock _booksSync = new();
-    private Dictionary<string, BookExposuresUpdated> _pendingBooks = new(StringComparer.Ordinal);
+    private Dictionary<string, BookFigures> _pendingBooks = new(StringComparer.Ordinal);
     private long _backlog;
     private long _published;
     private string? _lastError;
@@ -64,7 +64,7 @@ public sealed partial class EventOutbox : BackgroundService
     /// Queues one change's events (in order after every earlier change's) and its books' new figures. Waits only when
     /// the queue is full, which holds the caller's lock: back-pressure during a long broker outage.
     /// </summary>
-    public ValueTask EnqueueAsync(IReadOnlyList<object> events, IReadOnlyList<BookExposuresUpdated> books, CancellationToken cancellationToken)
+    public ValueTask EnqueueAsync(IReadOnlyList<object> events, IReadOnlyList<BookFigures> books, CancellationToken cancellationToken)
     {
         ArgumentNullException.ThrowIfNull(events);
         ArgumentNullException.ThrowIfNull(books);
@@ -80,7 +80,7 @@ public sealed partial class EventOutbox : BackgroundService
         }
         else if (books.Count > 0)
         {
-            events = [.. events, .. books];
+            events = [.. events, .. books.Select(b => b.ToMessage())];
         }
         return events.Count == 0 ? ValueTask.CompletedTask : WriteAsync(events, cancellationToken);
     }
@@ -168,7 +168,7 @@ public sealed partial class EventOutbox : BackgroundService
 
     private ValueTask QueuePendingBooksAsync(CancellationToken cancellationToken)
     {
-        Dictionary<string, BookExposuresUpdated> due;
+        Dictionary<string, BookFigures> due;
         lock (_booksSync)
         {
             if (_pendingBooks.Count == 0)
@@ -176,9 +176,9 @@ public sealed partial class EventOutbox : BackgroundService
                 return ValueTask.CompletedTask;
             }
             due = _pendingBooks;
-            _pendingBooks = new Dictionary<string, BookExposuresUpdated>(due.Count, StringComparer.Ordinal);
+            _pendingBooks = new Dictionary<string, BookFigures>(due.Count, StringComparer.Ordinal);
         }
-        return WriteAsync([.. due.Values], cancellationToken);
+        return WriteAsync([.. due.Values.Select(b => b.ToMessage())], cancellationToken);
     }
 
     /// <summary>Publishes one change's messages together, retrying those the broker did not confirm until all are through.</summary>

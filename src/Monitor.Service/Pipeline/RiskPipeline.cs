@@ -289,10 +289,10 @@ public sealed partial class RiskPipeline
             messages.Add(EventMapper.StatusChanged(change, curves, cause, now));
             _metrics.StatusChanges.Add(1);
         }
-        var books = new List<BookExposuresUpdated>(result.Books.Count);
+        var books = new List<BookFigures>(result.Books.Count);
         foreach (var update in result.Books)
         {
-            books.Add(EventMapper.BookUpdated(update, curves, cause, now));
+            books.Add(new BookFigures(update, curves, cause, now));
         }
         if (result.Books.Count > 0)
         {
