@@ -227,10 +227,12 @@ public sealed partial class RiskPipeline
         {
             var now = _time.GetUtcNow();
             var curves = _engine.CurvesInUse();
+            var batch = new ExposureLogBatch();
             foreach (var book in _engine.Books.Values.Where(b => b.Exposures is not null).OrderBy(b => b.Id, StringComparer.Ordinal))
             {
-                _log.Append(kind, now, new ExposureLogCause(null, "timer"), BookPayload(book.Id, book.Exposures!.Totals, curves));
+                batch.Add(kind, now, new ExposureLogCause(null, "timer"), BookPayload(book.Id, book.Exposures!.Totals, curves));
             }
+            WriteLog(batch);
         }
         finally
         {
@@ -241,6 +243,7 @@ public sealed partial class RiskPipeline
     private async Task CommitAsync(EngineResult result, Cause cause, DateTimeOffset now, CancellationToken cancellationToken)
     {
         var logCause = LogCause(cause);
+        var batch = new ExposureLogBatch();
         var curves = EventMapper.CurveVersions(_engine);
         var messages = new List<object>();
         foreach (var outcome in result.Curves)
@@ -260,13 +263,13 @@ public sealed partial class RiskPipeline
             };
             if (outcome.Accepted)
             {
-                _log.Append(ExposureLogKinds.CurveFitted, cause.EventTime, logCause, payload);
+                batch.Add(ExposureLogKinds.CurveFitted, cause.EventTime, logCause, payload);
                 messages.Add(EventMapper.CurveFitted(outcome, CurveKeyLabel.Of(outcome.CurveKey) == CurveKeyLabel.Government ? null : CurveKeyLabel.Government, cause, now));
             }
             else
             {
                 payload["reasons"] = outcome.Verdict.Reasons.ToArray();
-                _log.Append(ExposureLogKinds.CurveRejected, cause.EventTime, logCause, payload);
+                batch.Add(ExposureLogKinds.CurveRejected, cause.EventTime, logCause, payload);
                 messages.Add(EventMapper.CurveRejected(outcome, cause, now));
                 LogCurveRejected(CurveKeyLabel.Of(outcome.CurveKey), string.Join("; ", outcome.Verdict.Reasons));
             }
@@ -285,10 +288,12 @@ public sealed partial class RiskPipeline
                 ["utilisation"] = change.Utilisation,
                 ["curves"] = result.CurvesUsed,
             };
-            _log.Append(ExposureLogKinds.StatusChange, cause.EventTime, logCause, payload);
+            batch.Add(ExposureLogKinds.StatusChange, cause.EventTime, logCause, payload);
             messages.Add(EventMapper.StatusChanged(change, curves, cause, now));
             _metrics.StatusChanges.Add(1);
         }
+        // One fsync for the change's records, all on the disk before any of its events can be published.
+        WriteLog(batch);
         var books = new List<BookFigures>(result.Books.Count);
         foreach (var update in result.Books)
         {
@@ -302,6 +307,15 @@ public sealed partial class RiskPipeline
         // Published by the outbox, in order, outside this lock: 1,000 book events awaited here held every quote and
         // trade behind the broker's round trips (measured with `monitor load`).
         await _outbox.EnqueueAsync(messages, books, cancellationToken).ConfigureAwait(false);
+    }
+
+    /// <summary>Appends a change's records to the exposure log (one fsync); a failed write throws with the batch's progress kept.</summary>
+    private void WriteLog(ExposureLogBatch batch)
+    {
+        if (batch.Count > 0)
+        {
+            _log.Append(batch);
+        }
     }
 
     private static Dictionary<string, object?> BookPayload(string book, IReadOnlyDictionary<Limits.ExposureMeasure, double> totals, string curves)
@@ -324,14 +338,13 @@ public sealed partial class RiskPipeline
         try
         {
             var logged = LoggedTrades.Read(exposureLogFolder);
-            var written = 0;
-            foreach (var trade in replayed.Where(t => !logged.Contains((t.TradeId, t.Version))))
+            var batch = new ExposureLogBatch();
+            foreach (var trade in replayed.Where(t => logged.Add((t.TradeId, t.Version))))
             {
-                _log.Append(ExposureLogKinds.TradeApplied, trade.TradeTime, new ExposureLogCause(null, "journal-replay"), TradePayload(trade));
-                logged.Add((trade.TradeId, trade.Version));
-                written++;
+                batch.Add(ExposureLogKinds.TradeApplied, trade.TradeTime, new ExposureLogCause(null, "journal-replay"), TradePayload(trade));
             }
-            return written;
+            WriteLog(batch);
+            return batch.Count;
         }
         finally
         {
