@@ -38,7 +38,7 @@ internal sealed class EngineWorld
         {
             Engine.DefineInstrument(bond);
         }
-        foreach (var p in SyntheticMarket.Positions(bonds.Length, books, positions))
+        foreach (var p in SyntheticMarket.Positions(bonds.Length, books, positions).Where(p => p.Quantity != 0)) // the engine refuses a face of 0
         {
             Engine.LoadPosition(bookIds[p.Book], bonds[p.Bond].Id, p.Quantity * 100);
         }
