@@ -35,9 +35,18 @@ public sealed class BookState
 
     public DateTimeOffset? UpdatedAt { get; set; }
 
-    /// <summary>Whether the book holds anything under one of <paramref name="curveKeys"/>.</summary>
-    internal bool HoldsAny(IReadOnlySet<string> curveKeys) =>
-        _holdings.Any(h => h.Value.Count > 0 && curveKeys.Contains(h.Key));
+    /// <summary>Whether the book holds anything under a curve key that <paramref name="matches"/> (no allocation: once per book per change).</summary>
+    internal bool HoldsAny(Func<string, bool> matches)
+    {
+        foreach (var (key, holdings) in _holdings)
+        {
+            if (holdings.Count > 0 && matches(key))
+            {
+                return true;
+            }
+        }
+        return false;
+    }
 
     /// <summary>Holdings under <paramref name="curveKey"/>, or null when the book holds nothing there.</summary>
     internal BookHoldings? HoldingsUnder(string curveKey) =>

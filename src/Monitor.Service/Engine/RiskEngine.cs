@@ -196,7 +196,7 @@ public sealed class RiskEngine
         }
         if (changed.Count > 0)
         {
-            var affected = _books.Values.Where(b => governmentChanged || b.HoldsAny(changed));
+            var affected = _books.Values.Where(b => governmentChanged || b.HoldsAny(changed.Contains));
             Revalue(affected, now, result);
         }
     }
@@ -382,7 +382,7 @@ public sealed class RiskEngine
         var priced = new List<BookState>();
         foreach (var book in books)
         {
-            if (book.CurveKeys.Any(k => !CurveKey.IsGovernment(k) && _curves[k].Curve is null))
+            if (book.HoldsAny(k => !CurveKey.IsGovernment(k) && _curves[k].Curve is null))
             {
                 result.BooksAwaitingCurves.Add(book.Id);
             }
