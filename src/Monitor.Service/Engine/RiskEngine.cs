@@ -394,6 +394,7 @@ public sealed class RiskEngine
         var byKey = priced.Select(_ => new Dictionary<string, FactorExposures>(StringComparer.Ordinal)).ToArray();
         var total = priced.Select(_ => FactorExposures.Zero(government.FactorCount, 0)).ToArray();
         // Keys in ordinal order: each total is summed key by key in the order the per-key figures are listed.
+        var passes = new List<(string Key, CurveKeyInstruments Instruments, IFactorCurve? Spread, List<int> Holders, List<BookHoldings> Holdings)>();
         foreach (var (key, instruments) in _byCurveKey.OrderBy(k => k.Key, StringComparer.Ordinal))
         {
             var holders = new List<int>();
@@ -406,12 +407,18 @@ public sealed class RiskEngine
                     holdings.Add(held);
                 }
             }
-            if (holders.Count == 0)
+            if (holders.Count > 0)
             {
-                continue;
+                passes.Add((key, instruments, CurveKey.IsGovernment(key) ? null : _curves[key].Curve, holders, holdings));
             }
-            var rows = instruments.Rows(ValuationDate, government, CurveKey.IsGovernment(key) ? null : _curves[key].Curve);
-            var matrix = HoldingsRiskCalculator.ComputeAll(holdings, rows);
+        }
+        // One key's grid is mostly serial work (its base curve date by date): build stale keys side by side.
+        var rows = new InstrumentRiskRows[passes.Count];
+        Parallel.For(0, passes.Count, k => rows[k] = passes[k].Instruments.Rows(ValuationDate, government, passes[k].Spread));
+        for (var k = 0; k < passes.Count; k++)
+        {
+            var (key, _, _, holders, holdings) = passes[k];
+            var matrix = HoldingsRiskCalculator.ComputeAll(holdings, rows[k]);
             for (var j = 0; j < holders.Count; j++)
             {
                 var exposures = matrix.ToExposures(j);
