@@ -17,7 +17,8 @@ namespace Monitor.Service.Pipeline;
 /// the acknowledgements of inbound messages) instead of growing without end.
 /// Book figures are conflated: within <see cref="MonitorOptions.BookEventInterval"/> only each book's newest
 /// <see cref="BookExposuresUpdated"/> is sent, so a refit of the government curve does not send every book's
-/// figures tens of times a second. Limit and curve events are never conflated.
+/// figures tens of times a second. They go out on a lane of their own, so limit and curve events (never conflated)
+/// do not queue behind a thousand books' figures.
 /// </summary>
 public sealed partial class EventOutbox : BackgroundService
 {
@@ -37,6 +38,9 @@ public sealed partial class EventOutbox : BackgroundService
     private Dictionary<string, BookFigures> _pendingBooks = new(StringComparer.Ordinal);
     private long _backlog;
     private long _published;
+    // Serialises the book lane's flushes (the timer's and WhenPublishedAsync's).
+    private readonly SemaphoreSlim _bookLane = new(1, 1);
+    private readonly Lock _healthSync = new();
     private string? _lastError;
     private DateTimeOffset? _failingSince;
 
@@ -88,7 +92,7 @@ public sealed partial class EventOutbox : BackgroundService
     /// <summary>Completes when every change queued so far has been published (book figures waiting for their interval included).</summary>
     public async Task WhenPublishedAsync(CancellationToken cancellationToken)
     {
-        await QueuePendingBooksAsync(cancellationToken).ConfigureAwait(false);
+        await PublishPendingBooksAsync(cancellationToken).ConfigureAwait(false);
         while (Backlog > 0)
         {
             await Task.Delay(TimeSpan.FromMilliseconds(5), cancellationToken).ConfigureAwait(false);
@@ -158,7 +162,7 @@ public sealed partial class EventOutbox : BackgroundService
         {
             while (await timer.WaitForNextTickAsync(stoppingToken).ConfigureAwait(false))
             {
-                await QueuePendingBooksAsync(stoppingToken).ConfigureAwait(false);
+                await PublishPendingBooksAsync(stoppingToken).ConfigureAwait(false);
             }
         }
         catch (OperationCanceledException) when (stoppingToken.IsCancellationRequested)
@@ -166,19 +170,27 @@ public sealed partial class EventOutbox : BackgroundService
         }
     }
 
-    private ValueTask QueuePendingBooksAsync(CancellationToken cancellationToken)
+    private async Task PublishPendingBooksAsync(CancellationToken cancellationToken)
     {
-        Dictionary<string, BookFigures> due;
-        lock (_booksSync)
+        await _bookLane.WaitAsync(cancellationToken).ConfigureAwait(false);
+        try
         {
-            if (_pendingBooks.Count == 0)
+            Dictionary<string, BookFigures> due;
+            lock (_booksSync)
             {
-                return ValueTask.CompletedTask;
+                if (_pendingBooks.Count == 0)
+                {
+                    return;
+                }
+                due = _pendingBooks;
+                _pendingBooks = new Dictionary<string, BookFigures>(due.Count, StringComparer.Ordinal);
             }
-            due = _pendingBooks;
-            _pendingBooks = new Dictionary<string, BookFigures>(due.Count, StringComparer.Ordinal);
+            await PublishAsync([.. due.Values.Select(b => b.ToMessage())], cancellationToken).ConfigureAwait(false);
         }
-        return WriteAsync([.. due.Values.Select(b => b.ToMessage())], cancellationToken);
+        finally
+        {
+            _bookLane.Release();
+        }
     }
 
     /// <summary>Publishes one change's messages together, retrying those the broker did not confirm until all are through.</summary>
@@ -217,25 +229,40 @@ public sealed partial class EventOutbox : BackgroundService
             }
             if (failed.Count == 0)
             {
-                if (_failingSince is { } since)
-                {
-                    LogPublishingRecovered(_time.GetUtcNow() - since);
-                    _failingSince = null;
-                    Volatile.Write(ref _lastError, null);
-                }
+                MarkPublishing();
                 return;
             }
             stoppingToken.ThrowIfCancellationRequested();
-            var reason = error?.Message ?? "publish cancelled";
-            if (_failingSince is null)
-            {
-                _failingSince = _time.GetUtcNow();
-                LogPublishingFailed(failed.Count, reason);
-            }
-            Volatile.Write(ref _lastError, reason);
+            MarkFailing(failed.Count, error?.Message ?? "publish cancelled");
             await Task.Delay(pause, _time, stoppingToken).ConfigureAwait(false);
             pause = TimeSpan.FromTicks(Math.Min(pause.Ticks * 2, LongestRetry.Ticks));
             waiting = failed;
+        }
+    }
+
+    private void MarkFailing(int waiting, string reason)
+    {
+        lock (_healthSync)
+        {
+            if (_failingSince is null)
+            {
+                _failingSince = _time.GetUtcNow();
+                LogPublishingFailed(waiting, reason);
+            }
+            Volatile.Write(ref _lastError, reason);
+        }
+    }
+
+    private void MarkPublishing()
+    {
+        lock (_healthSync)
+        {
+            if (_failingSince is { } since)
+            {
+                LogPublishingRecovered(_time.GetUtcNow() - since);
+                _failingSince = null;
+                Volatile.Write(ref _lastError, null);
+            }
         }
     }
 
