@@ -78,6 +78,7 @@ public sealed class BrokerRestartTests(ITestOutputHelper output)
             Assert.True(reported.Count > 0, "the service logged no warning or error about the lost broker connection");
 
             await FaultFigures.AssertNothingLostOrDuplicatedAsync(rig, publisher, stream, $"1 broker stop_app/start_app ({Outage.TotalSeconds} s down) under load", output);
+            LimitStatusAudit.AssertEveryStatusChangeLogged(rig, stream, [], output);
         }
         finally
         {
