@@ -138,7 +138,7 @@ internal static class LimitStatusAudit
                 }
             }
         }
-        output.WriteLine(string.Create(CultureInfo.InvariantCulture,
+        FaultFigures.Report(output, string.Create(CultureInfo.InvariantCulture,
             $"limit status changes in the log: {changes.Count} over {runStarts.Count + 1} process run(s); limits the stream ends outside Within: {notWithin} of {limits.Count}; " +
             $"day-end exposures vs reference: {reference.Refit.Books.Count} books, worst relative difference {worst:E1}; problems: {problems.Count}"));
 
