@@ -152,25 +152,12 @@ public sealed class InboundFuzzTests(ITestOutputHelper output)
         output.WriteLine("refusals by field: " + string.Join(", ", fields.Select(f => $"{f.Key} {f.Value}")));
         var refusedByJson = tally.Values.Sum(n => n[1]);
         var refusedByRules = tally.Values.Sum(n => n[2]);
-        ReportFigures(string.Create(CultureInfo.InvariantCulture,
+        FiguresFile.Report(output, string.Create(CultureInfo.InvariantCulture,
             $"bad input: {Cases:N0} random and mutated messages tried (seed {Seed}); refused {refusedByJson + refusedByRules:N0} ({refusedByJson:N0} by JSON, {refusedByRules:N0} by mapper or engine), " +
             $"accepted {tally.Values.Sum(n => n[0]):N0}; refusals without a field and reason or with a state change, and crashes: {failures.Count}"));
         Assert.True(failures.Count == 0, string.Join("\n", failures));
         Assert.Equal(Cases, tally.Values.Sum(n => n[0] + n[1] + n[2]));
         Assert.All(tally.Values, n => Assert.True(n[1] + n[2] > 0, "every category has refusals"));
-    }
-
-    /// <summary>
-    /// Writes the figures line to the test output and appends it to the file MONITOR_FIGURES_FILE names, if set
-    /// (`.ci/run` prints that file, so the CI log shows the figures at the test logger's normal verbosity).
-    /// </summary>
-    private void ReportFigures(string line)
-    {
-        output.WriteLine(line);
-        if (Environment.GetEnvironmentVariable("MONITOR_FIGURES_FILE") is { Length: > 0 } file)
-        {
-            File.AppendAllText(file, line + Environment.NewLine);
-        }
     }
 
     private static string Clip(string json) => json.Length > 300 ? json[..300] + $"... ({json.Length} chars)" : json;
