@@ -35,7 +35,7 @@ internal static class LimitStatusAudit
     /// Relative difference allowed between the service's exposures and the reference's. Both fit the same final quotes
     /// with the same model and gate, but the service starts each refit from its previous parameters and the reference
     /// from the default start, so the optimiser stops at slightly different points (common practice, no source; the
-    /// worst difference is printed: 1.5e-7 to 1.6e-6 relative in the runs of 2026-12-01/02).
+    /// worst difference is printed: 3e-8 to 1.6e-6 relative in the runs of 2026-12-01/02).
     /// </summary>
     public const double ExposureTolerance = 1e-4;
 
