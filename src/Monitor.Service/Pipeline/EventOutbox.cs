@@ -25,6 +25,9 @@ public sealed partial class EventOutbox : BackgroundService
     /// <summary>Changes (not messages) the queue holds before the pipeline waits: minutes of a busy day's changes.</summary>
     public const int Capacity = 10_000;
 
+    /// <summary>Book figures sent together on the book lane.</summary>
+    private const int BookChunk = 8;
+
     private static readonly TimeSpan FirstRetry = TimeSpan.FromMilliseconds(250);
     private static readonly TimeSpan LongestRetry = TimeSpan.FromSeconds(5);
 
@@ -185,7 +188,12 @@ public sealed partial class EventOutbox : BackgroundService
                 due = _pendingBooks;
                 _pendingBooks = new Dictionary<string, BookFigures>(due.Count, StringComparer.Ordinal);
             }
-            await PublishAsync([.. due.Values.Select(b => b.ToMessage())], cancellationToken).ConfigureAwait(false);
+            // A few at a time: a thousand books sent at once would sit in the broker connection ahead of the next
+            // limit event (measured with `monitor load`: 0.3-0.8 s of added latency at each flush).
+            foreach (var chunk in due.Values.Chunk(BookChunk))
+            {
+                await PublishAsync([.. chunk.Select(b => b.ToMessage())], cancellationToken).ConfigureAwait(false);
+            }
         }
         finally
         {
