@@ -218,7 +218,7 @@ public sealed class RiskEngineHoldingsTests : IDisposable
             valued++;
             var dates = new CashFlowDateIndex();
             var ledger = new BookCashFlowLedger(dates);
-            var byPosition = new List<(string Key, Dictionary<ExposureMeasure, double> Measures)>();
+            var byPosition = new List<(string Key, IReadOnlyDictionary<ExposureMeasure, double> Measures)>();
             foreach (var (id, face) in book.Positions)
             {
                 var bond = engine.Instruments[id];
