@@ -23,11 +23,23 @@ public sealed record BookExposures
         return figures is not null && figures.TryGetValue(measure, out var value) ? value : 0.0;
     }
 
-    /// <summary>A copy that later changes to the caller's dictionaries cannot reach.</summary>
-    internal BookExposures Snapshot() => new()
+    /// <summary>
+    /// A copy that later changes to the caller's dictionaries cannot reach. Figures already immutable
+    /// (<see cref="MeasureFigures"/>) are shared, not copied: the whole record when nothing in it can change.
+    /// </summary>
+    internal BookExposures Snapshot()
     {
-        Totals = new Dictionary<ExposureMeasure, double>(Totals),
-        BySpreadGroup = BySpreadGroup.ToDictionary(
-            kv => kv.Key, kv => (IReadOnlyDictionary<ExposureMeasure, double>)new Dictionary<ExposureMeasure, double>(kv.Value), StringComparer.Ordinal),
-    };
+        if (Totals is MeasureFigures && BySpreadGroup.Count == 0)
+        {
+            return this;
+        }
+        return new()
+        {
+            Totals = Frozen(Totals),
+            BySpreadGroup = BySpreadGroup.ToDictionary(kv => kv.Key, kv => Frozen(kv.Value), StringComparer.Ordinal),
+        };
+    }
+
+    private static IReadOnlyDictionary<ExposureMeasure, double> Frozen(IReadOnlyDictionary<ExposureMeasure, double> figures) =>
+        figures as MeasureFigures ?? (IReadOnlyDictionary<ExposureMeasure, double>)new Dictionary<ExposureMeasure, double>(figures);
 }

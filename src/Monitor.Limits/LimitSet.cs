@@ -86,6 +86,41 @@ public sealed class LimitSet
     }
 
     /// <summary>
+    /// Replaces several books' exposures at once (a curve change revalues many books) and then evaluates each scope
+    /// they touch once, on the new figures of all of them: the books' own limits in the order given, then their
+    /// desks', then the firm's. Updating 1,000 books one at a time would sum the firm's books 1,000 times, and could
+    /// report a firm status that only held while half the books had moved.
+    /// </summary>
+    /// <returns>The status changes, book scopes first, then desks, then the firm.</returns>
+    /// <exception cref="KeyNotFoundException">Unknown book (nothing changed).</exception>
+    /// <exception cref="ArgumentOutOfRangeException">A non-finite exposure, naming book, measure and value (nothing changed).</exception>
+    public IReadOnlyList<LimitStatusChange> UpdateBooks(IReadOnlyList<(string BookId, BookExposures Exposures)> updates, DateTimeOffset asOf)
+    {
+        ArgumentNullException.ThrowIfNull(updates);
+        var scopes = new List<LimitScope>();
+        var seen = new HashSet<LimitScope>();
+        foreach (var (bookId, exposures) in updates)
+        {
+            foreach (var scope in CheckBookUpdate(bookId, exposures))
+            {
+                if (seen.Add(scope))
+                {
+                    scopes.Add(scope);
+                }
+            }
+        }
+
+        foreach (var (bookId, exposures) in updates)
+        {
+            _bookExposures[bookId] = exposures.Snapshot();
+        }
+
+        // Book scopes first (in the order given), then desks, then the firm: the order UpdateBook reports in (OrderBy is stable).
+        var ordered = scopes.OrderBy(s => s.Level switch { LimitScopeLevel.Book => 0, LimitScopeLevel.Desk => 1, _ => 2 }).ToList();
+        return EvaluateScopes(ordered, asOf, commit: true);
+    }
+
+    /// <summary>
     /// What-if: the status changes <see cref="UpdateBook(string, BookExposures, DateTimeOffset)"/> would produce for these exposures, without
     /// changing any state (for a check before a trade).
     /// </summary>

@@ -74,10 +74,11 @@ public sealed class BrokerRestartTests(ITestOutputHelper output)
                 output.WriteLine("  " + line);
             }
             var exit = await service.InterruptAsync(TimeSpan.FromSeconds(30));
-            Assert.True(exit == 0, $"the service exited with {exit} after SIGINT. Output:\n{service.Tail()}");
+            Assert.True(exit == 0, $"the service exited with {exit} after SIGTERM. Output:\n{service.Tail()}");
             Assert.True(reported.Count > 0, "the service logged no warning or error about the lost broker connection");
 
-            await FaultFigures.AssertNothingLostOrDuplicatedAsync(rig, publisher, stream, $"1 broker stop_app/start_app ({Outage.TotalSeconds} s down) under load", output);
+            await FaultFigures.AssertNothingLostOrDuplicatedAsync(rig, publisher, stream, $"1 broker stop_app/start_app ({Outage.TotalSeconds} s down) under load, after {journalledAtStop} of {stream.TradeMessages} trade versions were journalled", output);
+            LimitStatusAudit.AssertEveryStatusChangeLogged(rig, stream, [], output);
         }
         finally
         {

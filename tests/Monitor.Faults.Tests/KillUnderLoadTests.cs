@@ -53,13 +53,15 @@ public sealed class KillUnderLoadTests(ITestOutputHelper output)
             output.WriteLine($"SIGKILL after {journalledAtKill} journalled trade versions of {stream.TradeMessages}");
             Assert.True(journalledAtKill < stream.TradeMessages, "the kill came after every trade was processed; it proves nothing");
 
+            var lastSeqOfFirstRun = LimitStatusAudit.LastCompleteSeq(rig);
             second = rig.StartService();
             await rig.WaitForDrainAsync(publisher, second, stream, DrainTimeout);
             var exit = await second.InterruptAsync(TimeSpan.FromSeconds(30));
             output.WriteLine("restarted service, last output lines:\n" + second.Tail(15));
-            Assert.True(exit == 0, $"the restarted service exited with {exit} after SIGINT. Output:\n{second.Tail()}");
+            Assert.True(exit == 0, $"the restarted service exited with {exit} after SIGTERM. Output:\n{second.Tail()}");
 
-            await FaultFigures.AssertNothingLostOrDuplicatedAsync(rig, publisher, stream, "1 SIGKILL under load", output);
+            await FaultFigures.AssertNothingLostOrDuplicatedAsync(rig, publisher, stream, $"1 SIGKILL under load, after {journalledAtKill} of {stream.TradeMessages} trade versions were journalled", output);
+            LimitStatusAudit.AssertEveryStatusChangeLogged(rig, stream, [lastSeqOfFirstRun], output);
         }
         finally
         {

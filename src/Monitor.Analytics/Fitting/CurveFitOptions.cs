@@ -26,6 +26,14 @@ public sealed record CurveFitOptions
     /// <summary>Absolute bound on every beta (decimal): |b_k| &lt;= this.</summary>
     public double MaxAbsBeta { get; init; } = 1.0;
 
+    /// <summary>
+    /// A spread fit estimates its decay(s) only with at least (parameter count + this) instruments in the fit; with fewer
+    /// (a Nelson-Siegel spread over 4 to 6 bonds by default) the decays are held at values set by the group's durations,
+    /// because so few quotes cannot tell the decay apart from their noise (see <c>SpreadDecayRange</c>). Base curves always
+    /// estimate theirs. Common practice, no source: the same slack the outlier loop asks for.
+    /// </summary>
+    public int FreeSpreadDecayMinSurplus { get; init; } = 3;
+
     /// <summary>Iteration cap of a full fit from a cold start.</summary>
     public int MaxIterations { get; init; } = 200;
 
@@ -69,6 +77,11 @@ public sealed record CurveFitOptions
         {
             throw new ArgumentOutOfRangeException(nameof(MaxAbsBeta), MaxAbsBeta,
                 FormattableString.Invariant($"CurveFitOptions: need MaxAbsBeta > 0 and above MinLevel/MinSpreadLevel, got MaxAbsBeta={MaxAbsBeta}."));
+        }
+        if (FreeSpreadDecayMinSurplus < 0)
+        {
+            throw new ArgumentOutOfRangeException(nameof(FreeSpreadDecayMinSurplus), FreeSpreadDecayMinSurplus,
+                FormattableString.Invariant($"CurveFitOptions: need FreeSpreadDecayMinSurplus >= 0, got {FreeSpreadDecayMinSurplus}."));
         }
         if (MaxIterations < 1 || WarmMaxIterations < 1 || TauGridPoints < 2)
         {

@@ -52,6 +52,10 @@ internal sealed class FitEngine
             }
         }
         lower[0] = isSpread ? options.MinSpreadLevel : options.MinLevel;
+        if (isSpread)
+        {
+            SpreadDecays(problem, options, lower, upper);
+        }
 
         var exactCost = Square(options.ExactFitRmseBp * 1e-4) * problem.ActiveCount;
         var p = new double[n];
@@ -100,6 +104,10 @@ internal sealed class FitEngine
                     break;
                 }
                 exactCost = Square(options.ExactFitRmseBp * 1e-4) * problem.ActiveCount;
+                if (isSpread)
+                {
+                    SpreadDecays(problem, options, lower, upper); // the span may have narrowed
+                }
                 outcome = Solve(problem, options, p, lower, upper, options.MaxIterations, exactCost);
                 iterations += outcome.Iterations;
                 ComputeResiduals(problem, p, residualsBp);
@@ -111,12 +119,33 @@ internal sealed class FitEngine
 
     private SolverOutcome Solve(ILeastSquaresProblem problem, CurveFitOptions options, Span<double> p, ReadOnlySpan<double> lower, ReadOnlySpan<double> upper, int maxIterations, double exactCost)
     {
+        // A parameter whose box is a single point (a spread decay held fixed) is fixed, not merely clamped: its
+        // gradient must not enter the step of the others.
+        Span<bool> isFixed = stackalloc bool[problem.ParameterCount];
+        for (var k = 0; k < isFixed.Length; k++)
+        {
+            isFixed[k] = lower[k] == upper[k];
+        }
         if (options.Solver == FitSolver.MathNet)
         {
-            return MathNetLevenbergMarquardt.Solve(problem, p, lower, upper, maxIterations);
+            return MathNetLevenbergMarquardt.Solve(problem, p, lower, upper, isFixed, maxIterations);
         }
-        Span<bool> free = stackalloc bool[problem.ParameterCount];
-        return _native.Solve(problem, p, lower, upper, free, maxIterations, options.RelativeCostTolerance, exactCost);
+        return _native.Solve(problem, p, lower, upper, isFixed, maxIterations, options.RelativeCostTolerance, exactCost);
+    }
+
+    private void SpreadDecays(ILeastSquaresProblem problem, CurveFitOptions options, Span<double> lower, Span<double> upper)
+    {
+        EnsureProxies(problem.ActiveCount);
+        SpreadDecayRange.Apply(problem, options, _proxyTimes, _proxyRates, lower, upper);
+    }
+
+    private void EnsureProxies(int m)
+    {
+        if (_proxyTimes.Length < m)
+        {
+            _proxyTimes = new double[m];
+            _proxyRates = new double[m];
+        }
     }
 
     private SolverOutcome ColdStart(ILeastSquaresProblem problem, CurveFitOptions options, Span<double> p, ReadOnlySpan<double> lower, ReadOnlySpan<double> upper, double exactCost)
@@ -124,18 +153,13 @@ internal sealed class FitEngine
         var model = problem.Model;
         var n = problem.ParameterCount;
         var m = problem.ActiveCount;
-        if (_proxyTimes.Length < m)
-        {
-            _proxyTimes = new double[m];
-            _proxyRates = new double[m];
-        }
+        EnsureProxies(m);
         problem.RateProxies(_proxyTimes, _proxyRates);
 
-        var grid = new double[options.TauGridPoints];
-        for (var g = 0; g < grid.Length; g++)
-        {
-            grid[g] = options.MinTau * Math.Pow(options.MaxTau / options.MinTau, g / (grid.Length - 1.0));
-        }
+        // Decay grids over each decay's bounds (a spread fit narrows them, or fixes a decay: a one-point grid).
+        var firstDecay = model == CurveModel.NelsonSiegel ? 3 : 4;
+        var grid = DecayGrid(options, lower[firstDecay], upper[firstDecay]);
+        var grid2 = model == CurveModel.Svensson ? DecayGrid(options, lower[5], upper[5]) : grid;
         Span<bool> decayFixed = stackalloc bool[n];
         for (var k = 0; k < n; k++)
         {
@@ -147,7 +171,7 @@ internal sealed class FitEngine
         var seeds = new double[ColdStartSeeds * n];
         var seedCost = new double[ColdStartSeeds];
         Array.Fill(seedCost, double.PositiveInfinity);
-        var secondCount = model == CurveModel.Svensson ? grid.Length : 1;
+        var secondCount = model == CurveModel.Svensson ? grid2.Length : 1;
         Span<double> rowBest = stackalloc double[n];
         Span<bool> firstDecayFixed = stackalloc bool[n];
         firstDecayFixed[n - 2] = model == CurveModel.Svensson;
@@ -158,12 +182,12 @@ internal sealed class FitEngine
             {
                 if (model == CurveModel.Svensson)
                 {
-                    if (g2 <= g1)
+                    if (!(grid2[g2] > grid[g1]))
                     {
                         continue; // tau2 > tau1: the second hump sits further out (as in the published GSW curves)
                     }
                     trial[4] = grid[g1];
-                    trial[5] = grid[g2];
+                    trial[5] = grid2[g2];
                 }
                 else
                 {
@@ -223,6 +247,20 @@ internal sealed class FitEngine
             iterations += best.Iterations;
         }
         return best with { Iterations = iterations };
+    }
+
+    private static double[] DecayGrid(CurveFitOptions options, double low, double high)
+    {
+        if (low == high)
+        {
+            return [low];
+        }
+        var grid = new double[options.TauGridPoints];
+        for (var g = 0; g < grid.Length; g++)
+        {
+            grid[g] = low * Math.Pow(high / low, g / (grid.Length - 1.0));
+        }
+        return grid;
     }
 
     /// <summary>Betas by least squares of the rate proxies on the loadings at the given decays (a tiny ridge keeps it solvable).</summary>

@@ -8,7 +8,8 @@ namespace Monitor.Analytics.Fitting;
 /// The same problem through MathNet.Numerics 5 <see cref="LevenbergMarquardtMinimizer"/> with
 /// <see cref="ObjectiveFunction.NonlinearModel(Func{Vector{double}, Vector{double}, Vector{double}}, Func{Vector{double}, Vector{double}, Matrix{double}}, Vector{double}, Vector{double}, Vector{double})"/>:
 /// model f(p; x_i) = -r_i(p) against observations y_i = 0, so that y - f = r; its Jacobian is -dr/dp.
-/// MathNet handles bounds by a change of variables, so the start is moved strictly inside the box.
+/// MathNet handles bounds by a change of variables, so the start is moved strictly inside the box; fixed parameters
+/// (a box of one point) go through its isFixed list.
 /// Allocates vectors per evaluation: kept as a cross-check and a fallback, not for the hot path.
 /// </summary>
 internal static class MathNetLevenbergMarquardt
@@ -18,6 +19,7 @@ internal static class MathNetLevenbergMarquardt
         Span<double> p,
         ReadOnlySpan<double> lower,
         ReadOnlySpan<double> upper,
+        ReadOnlySpan<bool> isFixed,
         int maxIterations)
     {
         var n = problem.ParameterCount;
@@ -54,8 +56,18 @@ internal static class MathNetLevenbergMarquardt
         var lo = Vector<double>.Build.Dense(n);
         var hi = Vector<double>.Build.Dense(n);
         var guess = Vector<double>.Build.Dense(n);
+        var fixedFlags = new List<bool>(n);
         for (var k = 0; k < n; k++)
         {
+            fixedFlags.Add(isFixed[k]);
+            if (isFixed[k])
+            {
+                // MathNet keeps a fixed parameter at its guess; its bounds must still be a proper interval for the change of variables.
+                lo[k] = lower[k] - 1.0;
+                hi[k] = upper[k] + 1.0;
+                guess[k] = lower[k];
+                continue;
+            }
             lo[k] = lower[k];
             hi[k] = upper[k];
             var margin = 1e-9 * (upper[k] - lower[k]);
@@ -65,7 +77,7 @@ internal static class MathNetLevenbergMarquardt
             initialMu: 1e-3, gradientTolerance: 1e-18, stepTolerance: 1e-15, functionTolerance: 1e-24, maximumIterations: maxIterations);
         try
         {
-            var result = minimizer.FindMinimum(objective, guess, lo, hi);
+            var result = minimizer.FindMinimum(objective, guess, lo, hi, null, fixedFlags);
             for (var k = 0; k < n; k++)
             {
                 p[k] = result.MinimizingPoint[k];

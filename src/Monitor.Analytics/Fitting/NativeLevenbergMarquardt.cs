@@ -4,7 +4,8 @@ namespace Monitor.Analytics.Fitting;
 /// Levenberg-Marquardt over preallocated arrays (Madsen, Nielsen and Tingleff, "Methods for Non-Linear
 /// Least Squares Problems", 2nd ed. 2004, algorithm 3.16: gain ratio and Nielsen's damping update;
 /// Marquardt's diagonal scaling). Normal equations (J'J + mu diag(J'J)) h = -J'r solved by Cholesky;
-/// bounds by projecting the trial point onto the box, the gain ratio then uses the projected step.
+/// bounds by projecting the trial point onto the box, the gain ratio then uses the projected step; a parameter on its
+/// bound that the gradient pushes outward is held for the iteration (see <see cref="HoldActiveBounds"/>).
 /// Fixed parameters get a zero step. No allocation per iteration: buffers are sized once per problem size.
 /// </summary>
 internal sealed class NativeLevenbergMarquardt
@@ -54,6 +55,7 @@ internal sealed class NativeLevenbergMarquardt
             }
             iterations++;
             BuildNormalEquations(jac, r, m, n, isFixed);
+            HoldActiveBounds(p, lower, upper, n);
             var maxDiag = 0.0;
             for (var k = 0; k < n; k++)
             {
@@ -155,6 +157,34 @@ internal sealed class NativeLevenbergMarquardt
             }
         }
         return new SolverOutcome(iterations, cost <= exactCost, cost <= exactCost ? "exact fit (RMSE below tolerance)" : "iteration limit reached", cost);
+    }
+
+    /// <summary>
+    /// A parameter on its bound whose descent direction points out of the box is held for this iteration (its row and
+    /// column taken out as for a fixed one): the step of the others then solves the reduced system instead of being the
+    /// full step with that component clipped, and the gradient test sees the projected gradient. Without this, with a
+    /// decay sitting on its bound, every clipped step was a poor step for the betas too, and the relative-reduction test
+    /// stopped the fit short of the minimum (0.6 bp apart in the level on a ten-bond spread group).
+    /// Projected (active-set) Levenberg-Marquardt, Kanzow, Yamashita and Fukushima, J. Comput. Appl. Math. 172 (2004).
+    /// </summary>
+    private void HoldActiveBounds(ReadOnlySpan<double> p, ReadOnlySpan<double> lower, ReadOnlySpan<double> upper, int n)
+    {
+        for (var k = 0; k < n; k++)
+        {
+            // _g = J'r: the descent direction is -_g.
+            var blocked = (p[k] <= lower[k] && _g[k] > 0) || (p[k] >= upper[k] && _g[k] < 0);
+            if (!blocked)
+            {
+                continue;
+            }
+            for (var l = 0; l < n; l++)
+            {
+                _jtj[k * n + l] = 0;
+                _jtj[l * n + k] = 0;
+            }
+            _jtj[k * n + k] = 1;
+            _g[k] = 0;
+        }
     }
 
     private void BuildNormalEquations(ReadOnlySpan<double> jac, ReadOnlySpan<double> r, int m, int n, ReadOnlySpan<bool> isFixed)

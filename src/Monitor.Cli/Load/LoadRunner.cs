@@ -62,6 +62,7 @@ internal static class LoadRunner
             ["Monitor:ValuationDate"] = DemoScenario.ValuationDate.ToString("yyyy-MM-dd", CultureInfo.InvariantCulture),
             ["Monitor:ConflationWindow"] = options.ConflationWindow.ToString("c", CultureInfo.InvariantCulture),
             ["Monitor:SnapshotInterval"] = "00:00:00",
+            ["Monitor:BookEventInterval"] = (options.BookEventInterval ?? TimeSpan.FromSeconds(1)).ToString("c", CultureInfo.InvariantCulture),
             ["Transport:Kind"] = "RabbitMq",
             ["Transport:Broker:Host"] = options.Broker.Host,
             ["Transport:Broker:Port"] = options.Broker.Port.ToString(CultureInfo.InvariantCulture),

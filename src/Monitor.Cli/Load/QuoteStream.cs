@@ -72,7 +72,9 @@ internal sealed class QuoteStream
             InstrumentId = bond.Id,
             FaceAmount = random.Next(1, 6) * 1_000_000 * (random.Next(2) == 0 ? -1 : 1),
             CleanPrice = Math.Round(_factory.CleanPrice(bond, SimulatedTime(index), step), 3),
-            TradeTime = now,
+            // On the scenario's trade date at the clock's time of day: the service values the books as of the
+            // scenario's valuation date and refuses trade times more than a week from it.
+            TradeTime = DemoScenario.At(now.UtcDateTime.TimeOfDay),
         };
     }
 }

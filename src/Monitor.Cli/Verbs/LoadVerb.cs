@@ -23,11 +23,12 @@ internal static class LoadVerb
         var count = new Option<long>("--count") { Description = "Quotes in the max-rate throughput phase.", DefaultValueFactory = _ => 5_000 };
         var tradeEvery = new Option<int>("--trade-every") { Description = "Service mode: a trade after every N quotes; 0 for none.", DefaultValueFactory = _ => 250 };
         var conflation = new Option<double>("--conflation-ms") { Description = "The service's conflation window in milliseconds (its default is 20).", DefaultValueFactory = _ => 20 };
+        var bookEvents = new Option<double>("--book-events-ms") { Description = "The service's book-figure interval (Monitor:BookEventInterval) in milliseconds; 0 sends every change (its default is 1000).", DefaultValueFactory = _ => 1000 };
         var workDir = new Option<DirectoryInfo?>("--work-dir") { Description = "Folder for the generated books, the exposure log and the service log; default a new monitor-load-<time> folder under the system temp folder." };
         var noFsync = new Option<bool>("--no-log-fsync") { Description = "Service mode: run the exposure log without an fsync per record (ExposureLog:FlushToDisk=false), to see what the fsyncs cost." };
         var json = new Option<bool>("--json") { Description = "Print the results as JSON." };
         var command = new Command("load", "Load-test the service over RabbitMQ (loopback): paced quote -> event latency percentiles, and throughput against a bare consumer.");
-        foreach (var option in new Option[] { broker, rate, seconds, warmup, books, mode, count, tradeEvery, conflation, workDir, noFsync, json })
+        foreach (var option in new Option[] { broker, rate, seconds, warmup, books, mode, count, tradeEvery, conflation, bookEvents, workDir, noFsync, json })
         {
             command.Options.Add(option);
         }
@@ -47,7 +48,8 @@ internal static class LoadVerb
                     Within("--trade-every", parse.GetValue(tradeEvery), 0, int.MaxValue),
                     TimeSpan.FromMilliseconds(Math.Clamp(parse.GetValue(conflation), 0, 10_000)),
                     parse.GetValue(workDir)?.FullName ?? LoadOptions.DefaultWorkDir(DateTimeOffset.UtcNow),
-                    !parse.GetValue(noFsync));
+                    !parse.GetValue(noFsync),
+                    BookEventInterval: TimeSpan.FromMilliseconds(Math.Clamp(parse.GetValue(bookEvents), 0, 600_000)));
             }
             catch (ArgumentException ex)
             {

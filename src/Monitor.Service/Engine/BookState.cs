@@ -3,14 +3,19 @@ using Monitor.Limits;
 
 namespace Monitor.Service.Engine;
 
-/// <summary>One book: its positions by instrument, its cash flows merged by date, and its last figures.</summary>
+/// <summary>
+/// One book: its positions by instrument, the same positions as quantities of registered instruments per curve key
+/// (what the risk pass reads), and its last figures.
+/// </summary>
 public sealed class BookState
 {
-    public BookState(string id, string desk, CashFlowDateIndex dates)
+    // Per curve key, so that a revaluation yields the per-key breakdown (spread-group limits) without a second pass.
+    private readonly Dictionary<string, BookHoldings> _holdings = new(StringComparer.Ordinal);
+
+    public BookState(string id, string desk)
     {
         Id = id;
         Desk = desk;
-        Ledger = new BookCashFlowLedger(dates);
     }
 
     public string Id { get; }
@@ -20,11 +25,49 @@ public sealed class BookState
     /// <summary>Signed face amount by instrument id.</summary>
     public Dictionary<string, double> Positions { get; } = new(StringComparer.Ordinal);
 
-    public BookCashFlowLedger Ledger { get; }
+    /// <summary>Curve keys under which the book holds instruments with cash flows still to come, in ordinal order.</summary>
+    public IReadOnlyList<string> CurveKeys =>
+        _holdings.Where(h => h.Value.Count > 0).Select(h => h.Key).Order(StringComparer.Ordinal).ToArray();
 
     public BookExposures? Exposures { get; set; }
 
     public BookRisk? Risk { get; set; }
 
     public DateTimeOffset? UpdatedAt { get; set; }
+
+    /// <summary>Whether the book holds anything under a curve key that <paramref name="matches"/> (no allocation: once per book per change).</summary>
+    internal bool HoldsAny(Func<string, bool> matches)
+    {
+        foreach (var (key, holdings) in _holdings)
+        {
+            if (holdings.Count > 0 && matches(key))
+            {
+                return true;
+            }
+        }
+        return false;
+    }
+
+    /// <summary>Holdings under <paramref name="curveKey"/>, or null when the book holds nothing there.</summary>
+    internal BookHoldings? HoldingsUnder(string curveKey) =>
+        _holdings.TryGetValue(curveKey, out var holdings) && holdings.Count > 0 ? holdings : null;
+
+    /// <summary>Adds <paramref name="quantity"/> (face / 100) of instrument <paramref name="number"/> of the key's table.</summary>
+    internal void AddHolding(string curveKey, int number, double quantity)
+    {
+        if (!_holdings.TryGetValue(curveKey, out var holdings))
+        {
+            _holdings.Add(curveKey, holdings = new BookHoldings());
+        }
+        holdings.Add(number, quantity);
+    }
+
+    /// <summary>Drops whatever quantity of instrument <paramref name="number"/> is left (the position was closed).</summary>
+    internal void ClearHolding(string curveKey, int number)
+    {
+        if (_holdings.TryGetValue(curveKey, out var holdings))
+        {
+            holdings.Remove(number, holdings.QuantityOf(number));
+        }
+    }
 }

@@ -13,7 +13,8 @@ namespace Monitor.Service.Engine;
 
 /// <summary>
 /// The monitor's state and its rules, free of messaging and I/O: instruments, the latest quotes per curve,
-/// the fitted curves, books (positions merged into cash flows by date) and limit statuses.
+/// the fitted curves, books (positions, held as quantities of instruments whose cash flows are registered once per
+/// curve key) and limit statuses.
 /// Every input either changes state and says what changed (an <see cref="EngineResult"/>), or throws a
 /// <see cref="MessageRejectedException"/> before touching anything. Not thread-safe: one caller at a time.
 /// All state is held by the instance (no static state), so books can later be split across instances.
@@ -24,10 +25,10 @@ public sealed class RiskEngine
 {
     // Concurrent so PriceQuote can read it from a consumer thread while the engine's owner writes it.
     private readonly ConcurrentDictionary<string, Bond> _instruments = new(StringComparer.Ordinal);
-    private readonly Dictionary<string, IReadOnlyList<CashFlow>> _flows = new(StringComparer.Ordinal);
+    private readonly Dictionary<string, RegisteredInstrument> _registered = new(StringComparer.Ordinal);
+    private readonly Dictionary<string, CurveKeyInstruments> _byCurveKey = new(StringComparer.Ordinal);
     private readonly Dictionary<string, CurveState> _curves = new(StringComparer.Ordinal);
     private readonly Dictionary<string, BookState> _books = new(StringComparer.Ordinal);
-    private readonly CashFlowDateIndex _dates = new();
     private readonly BondCurveFitter _baseFitter = new();
     private readonly ParYieldCurveFitter _parYieldFitter = new();
     private readonly Dictionary<string, SpreadCurveFitter> _spreadFitters = new(StringComparer.Ordinal);
@@ -45,7 +46,7 @@ public sealed class RiskEngine
         _curves[CurveKey.Government] = new CurveState(CurveKey.Government);
         foreach (var book in limits.Hierarchy.Books)
         {
-            _books[book] = new BookState(book, limits.Hierarchy.DeskOf(book), _dates);
+            _books[book] = new BookState(book, limits.Hierarchy.DeskOf(book));
         }
     }
 
@@ -63,7 +64,10 @@ public sealed class RiskEngine
 
     public TradeRegister Trades => _trades;
 
-    /// <summary>Adds or replaces a bond's reference data. A bond already held in a book may not change.</summary>
+    /// <summary>
+    /// Adds or replaces a bond's reference data and registers its cash flows once (again only when they or its curve
+    /// key changed). A bond already held in a book may not change.
+    /// </summary>
     public void DefineInstrument(Bond bond)
     {
         ArgumentNullException.ThrowIfNull(bond);
@@ -71,9 +75,18 @@ public sealed class RiskEngine
         {
             throw new MessageRejectedException("instrumentId", bond.Id, "is held in a book and its terms differ from the ones in use; amend reference data after the positions are closed.");
         }
-        _instruments[bond.Id] = bond;
-        _flows[bond.Id] = bond.MaturityDate > ValuationDate ? bond.CashFlowsAfter(ValuationDate) : [];
+        var flows = bond.MaturityDate > ValuationDate ? bond.CashFlowsAfter(ValuationDate) : [];
         var key = CurveKey.Normalize(bond.SpreadGroup);
+        if (!_registered.TryGetValue(bond.Id, out var registered) || !SameFlows(registered, key, flows))
+        {
+            // Tables are append-only: a redefined bond gets a new number; the old row stays, held by no book.
+            if (!_byCurveKey.TryGetValue(key, out var instruments))
+            {
+                _byCurveKey[key] = instruments = new CurveKeyInstruments(key);
+            }
+            _registered[bond.Id] = new RegisteredInstrument(key, instruments.Table.Register(key, flows), flows.Count);
+        }
+        _instruments[bond.Id] = bond;
         if (!_curves.ContainsKey(key))
         {
             _curves[key] = new CurveState(key);
@@ -204,7 +217,7 @@ public sealed class RiskEngine
         }
         if (changed.Count > 0)
         {
-            var affected = _books.Values.Where(b => governmentChanged || b.Ledger.CurveKeys.Any(changed.Contains));
+            var affected = _books.Values.Where(b => governmentChanged || b.HoldsAny(changed.Contains));
             Revalue(affected, now, result);
         }
     }
@@ -292,7 +305,7 @@ public sealed class RiskEngine
         var reload = _limits.Reload(limits.Hierarchy, limits.Limits, now);
         foreach (var book in limits.Hierarchy.Books.Where(b => !_books.ContainsKey(b)))
         {
-            _books[book] = new BookState(book, limits.Hierarchy.DeskOf(book), _dates);
+            _books[book] = new BookState(book, limits.Hierarchy.DeskOf(book));
         }
         return reload;
     }
@@ -377,45 +390,100 @@ public sealed class RiskEngine
         return (instruments, excluded);
     }
 
+    /// <summary>
+    /// Revalues <paramref name="books"/> on the current curves: per curve key they hold, the instrument rows (built once
+    /// per curve change, <see cref="CurveKeyInstruments"/>) times each book's quantities, all these books in one pass;
+    /// a book's total is the sum of its keys' exposures, as for its cash flows merged by date. A book holding a spread
+    /// group without a fitted curve waits (<see cref="EngineResult.BooksAwaitingCurves"/>).
+    /// </summary>
     private void Revalue(IEnumerable<BookState> books, DateTimeOffset now, EngineResult result)
     {
         var clock = Stopwatch.StartNew();
         var government = _curves[CurveKey.Government].Curve!;
-        var spreads = _curves.Values
-            .Where(c => !CurveKey.IsGovernment(c.Key) && c.Curve is not null)
-            .ToDictionary(c => c.Key, c => c.Curve!, StringComparer.Ordinal);
-        var grid = CurveGrid.Build(_dates, ValuationDate, government, spreads);
+        var priced = new List<BookState>();
         foreach (var book in books)
         {
-            if (book.Ledger.CurveKeys.Any(k => !CurveKey.IsGovernment(k) && !spreads.ContainsKey(k)))
+            if (book.HoldsAny(k => !CurveKey.IsGovernment(k) && _curves[k].Curve is null))
             {
                 result.BooksAwaitingCurves.Add(book.Id);
-                continue;
             }
-            var risk = BookRiskCalculator.Compute(book.Ledger, grid);
+            else
+            {
+                priced.Add(book);
+            }
+        }
+        var byKey = priced.Select(_ => new Dictionary<string, FactorExposures>(StringComparer.Ordinal)).ToArray();
+        var total = priced.Select(_ => FactorExposures.Zero(government.FactorCount, 0)).ToArray();
+        // Keys in ordinal order: each total is summed key by key in the order the per-key figures are listed.
+        var passes = new List<(string Key, CurveKeyInstruments Instruments, IFactorCurve? Spread, List<int> Holders, List<BookHoldings> Holdings)>();
+        foreach (var (key, instruments) in _byCurveKey.OrderBy(k => k.Key, StringComparer.Ordinal))
+        {
+            var holders = new List<int>();
+            var holdings = new List<BookHoldings>();
+            for (var i = 0; i < priced.Count; i++)
+            {
+                if (priced[i].HoldingsUnder(key) is { } held)
+                {
+                    holders.Add(i);
+                    holdings.Add(held);
+                }
+            }
+            if (holders.Count > 0)
+            {
+                passes.Add((key, instruments, CurveKey.IsGovernment(key) ? null : _curves[key].Curve, holders, holdings));
+            }
+        }
+        // One key's grid is mostly serial work (its base curve date by date): build stale keys side by side.
+        var rows = new InstrumentRiskRows[passes.Count];
+        Parallel.For(0, passes.Count, k => rows[k] = passes[k].Instruments.Rows(ValuationDate, government, passes[k].Spread));
+        for (var k = 0; k < passes.Count; k++)
+        {
+            var (key, _, _, holders, holdings) = passes[k];
+            var matrix = HoldingsRiskCalculator.ComputeAll(holdings, rows[k]);
+            for (var j = 0; j < holders.Count; j++)
+            {
+                var exposures = matrix.ToExposures(j);
+                byKey[holders[j]].Add(key, exposures);
+                total[holders[j]] = total[holders[j]].Plus(exposures);
+            }
+        }
+        var limitUpdates = new (string BookId, BookExposures Exposures)[priced.Count];
+        for (var i = 0; i < priced.Count; i++)
+        {
+            var book = priced[i];
+            var risk = new BookRisk(total[i], byKey[i]);
             var exposures = ExposureMapping.ToBookExposures(risk);
             book.Risk = risk;
             book.Exposures = exposures;
             book.UpdatedAt = now;
             result.Books.Add(new BookUpdate(book.Id, exposures, risk));
-            result.StatusChanges.AddRange(_limits.UpdateBook(book.Id, exposures, now));
+            limitUpdates[i] = (book.Id, exposures);
         }
+        // All books first, then each desk and the firm once on the new figures (not once per book).
+        result.StatusChanges.AddRange(_limits.UpdateBooks(limitUpdates, now));
         result.ExposureMilliseconds += clock.Elapsed.TotalMilliseconds;
         result.CurvesUsed = CurvesInUse();
     }
 
+    /// <summary>How many times instrument rows were built, over all curve keys (tests check that a trade builds none).</summary>
+    internal int InstrumentRowBuilds => _byCurveKey.Values.Sum(k => k.RowBuilds);
+
     private void Move(BookState book, Bond bond, double faceAmount)
     {
-        var flows = _flows[bond.Id];
-        book.Ledger.Add(bond.SpreadGroup, flows, faceAmount / 100.0);
+        var registered = _registered[bond.Id];
         var held = book.Positions.GetValueOrDefault(bond.Id) + faceAmount;
         if (Math.Abs(held) < 1e-6)
         {
             book.Positions.Remove(bond.Id);
+            book.ClearHolding(registered.CurveKey, registered.Number);
         }
         else
         {
             book.Positions[bond.Id] = held;
+            if (registered.FlowCount > 0)
+            {
+                book.AddHolding(registered.CurveKey, registered.Number, faceAmount / 100.0); // quantity = face / 100: flows are per 100 face
+            }
         }
     }
 
@@ -470,6 +538,9 @@ public sealed class RiskEngine
     }
 
     private bool IsHeld(string instrumentId) => _books.Values.Any(b => b.Positions.ContainsKey(instrumentId));
+
+    private bool SameFlows(RegisteredInstrument registered, string curveKey, IReadOnlyList<CashFlow> flows) =>
+        registered.CurveKey == curveKey && _byCurveKey[curveKey].Table.CashFlows(registered.Number).SequenceEqual(flows);
 
     private static bool SameTerms(Bond a, Bond b) =>
         a.CouponRate == b.CouponRate && a.Frequency == b.Frequency && a.DayCount == b.DayCount && a.IssueDate == b.IssueDate

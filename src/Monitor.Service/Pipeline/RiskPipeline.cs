@@ -221,7 +221,7 @@ public sealed partial class RiskPipeline
                 ["modified"] = reload.Modified.Select(m => m.After.Id).ToArray(),
                 ["limits"] = limits.Limits.Count,
             };
-            await AppendAsync(ExposureLogKinds.LimitsReloaded, now, LogCause(cause), payload, cancellationToken).ConfigureAwait(false);
+            await _storage.RunAsync(StorageFaultGate.ExposureLog, () => _log.Append(ExposureLogKinds.LimitsReloaded, now, LogCause(cause), payload), cancellationToken).ConfigureAwait(false);
             var result = new EngineResult { CurvesUsed = _engine.CurvesInUse() };
             result.StatusChanges.AddRange(reload.StatusChanges);
             await CommitAsync(result, cause, now, cancellationToken).ConfigureAwait(false);
@@ -247,10 +247,12 @@ public sealed partial class RiskPipeline
         {
             var now = _time.GetUtcNow();
             var curves = _engine.CurvesInUse();
+            var batch = new ExposureLogBatch();
             foreach (var book in _engine.Books.Values.Where(b => b.Exposures is not null).OrderBy(b => b.Id, StringComparer.Ordinal))
             {
-                await AppendAsync(kind, now, new ExposureLogCause(null, "timer"), BookPayload(book.Id, book.Exposures!.Totals, curves), cancellationToken).ConfigureAwait(false);
+                batch.Add(kind, now, new ExposureLogCause(null, "timer"), BookPayload(book.Id, book.Exposures!.Totals, curves));
             }
+            await WriteLogAsync(batch, cancellationToken).ConfigureAwait(false);
         }
         finally
         {
@@ -261,6 +263,7 @@ public sealed partial class RiskPipeline
     private async Task CommitAsync(EngineResult result, Cause cause, DateTimeOffset now, CancellationToken cancellationToken)
     {
         var logCause = LogCause(cause);
+        var batch = new ExposureLogBatch();
         var curves = EventMapper.CurveVersions(_engine);
         var messages = new List<object>();
         foreach (var outcome in result.Curves)
@@ -280,13 +283,13 @@ public sealed partial class RiskPipeline
             };
             if (outcome.Accepted)
             {
-                await AppendAsync(ExposureLogKinds.CurveFitted, cause.EventTime, logCause, payload, cancellationToken).ConfigureAwait(false);
+                batch.Add(ExposureLogKinds.CurveFitted, cause.EventTime, logCause, payload);
                 messages.Add(EventMapper.CurveFitted(outcome, CurveKeyLabel.Of(outcome.CurveKey) == CurveKeyLabel.Government ? null : CurveKeyLabel.Government, cause, now));
             }
             else
             {
                 payload["reasons"] = outcome.Verdict.Reasons.ToArray();
-                await AppendAsync(ExposureLogKinds.CurveRejected, cause.EventTime, logCause, payload, cancellationToken).ConfigureAwait(false);
+                batch.Add(ExposureLogKinds.CurveRejected, cause.EventTime, logCause, payload);
                 messages.Add(EventMapper.CurveRejected(outcome, cause, now));
                 LogCurveRejected(CurveKeyLabel.Of(outcome.CurveKey), string.Join("; ", outcome.Verdict.Reasons));
             }
@@ -305,14 +308,16 @@ public sealed partial class RiskPipeline
                 ["utilisation"] = change.Utilisation,
                 ["curves"] = result.CurvesUsed,
             };
-            await AppendAsync(ExposureLogKinds.StatusChange, cause.EventTime, logCause, payload, cancellationToken).ConfigureAwait(false);
+            batch.Add(ExposureLogKinds.StatusChange, cause.EventTime, logCause, payload);
             messages.Add(EventMapper.StatusChanged(change, curves, cause, now));
             _metrics.StatusChanges.Add(1);
         }
-        var books = new List<BookExposuresUpdated>(result.Books.Count);
+        // One fsync for the change's records, all on the disk before any of its events can be published.
+        await WriteLogAsync(batch, cancellationToken).ConfigureAwait(false);
+        var books = new List<BookFigures>(result.Books.Count);
         foreach (var update in result.Books)
         {
-            books.Add(EventMapper.BookUpdated(update, curves, cause, now));
+            books.Add(new BookFigures(update, curves, cause, now));
         }
         if (result.Books.Count > 0)
         {
@@ -324,9 +329,17 @@ public sealed partial class RiskPipeline
         await _outbox.EnqueueAsync(messages, books, cancellationToken).ConfigureAwait(false);
     }
 
-    /// <summary>An exposure log append held through a storage outage (see <see cref="StorageFaultGate"/>).</summary>
-    private Task AppendAsync(string kind, DateTimeOffset eventTime, ExposureLogCause cause, Dictionary<string, object?> payload, CancellationToken cancellationToken) =>
-        _storage.RunAsync(StorageFaultGate.ExposureLog, () => _log.Append(kind, eventTime, cause, payload), cancellationToken);
+    /// <summary>
+    /// Appends a change's records to the exposure log (one fsync), held through a storage outage by the
+    /// <see cref="StorageFaultGate"/>: a failed write keeps the batch's progress, so each retry continues where it stopped.
+    /// </summary>
+    private async Task WriteLogAsync(ExposureLogBatch batch, CancellationToken cancellationToken)
+    {
+        if (batch.Count > 0)
+        {
+            await _storage.RunAsync(StorageFaultGate.ExposureLog, () => _log.Append(batch), cancellationToken).ConfigureAwait(false);
+        }
+    }
 
     private static Dictionary<string, object?> BookPayload(string book, IReadOnlyDictionary<Limits.ExposureMeasure, double> totals, string curves)
     {
@@ -348,14 +361,13 @@ public sealed partial class RiskPipeline
         try
         {
             var logged = LoggedTrades.Read(exposureLogFolder);
-            var written = 0;
-            foreach (var trade in replayed.Where(t => !logged.Contains((t.TradeId, t.Version))))
+            var batch = new ExposureLogBatch();
+            foreach (var trade in replayed.Where(t => logged.Add((t.TradeId, t.Version))))
             {
-                await AppendAsync(ExposureLogKinds.TradeApplied, trade.TradeTime, new ExposureLogCause(null, "journal-replay"), TradePayload(trade), cancellationToken).ConfigureAwait(false);
-                logged.Add((trade.TradeId, trade.Version));
-                written++;
+                batch.Add(ExposureLogKinds.TradeApplied, trade.TradeTime, new ExposureLogCause(null, "journal-replay"), TradePayload(trade));
             }
-            return written;
+            await WriteLogAsync(batch, cancellationToken).ConfigureAwait(false);
+            return batch.Count;
         }
         finally
         {

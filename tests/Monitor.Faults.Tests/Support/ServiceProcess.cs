@@ -83,10 +83,14 @@ public sealed class ServiceProcess : IDisposable
         _process.WaitForExit(10_000);
     }
 
-    /// <summary>SIGINT (as Ctrl+C): the host stops cleanly and writes the day-end snapshot. Returns the exit code.</summary>
+    /// <summary>
+    /// SIGTERM (a service manager's stop): the host stops cleanly and writes the day-end snapshot. Returns the exit code.
+    /// Not SIGINT: a shell starts background jobs with SIGINT ignored and the child processes inherit that, so a test
+    /// run started with `&amp;` (or from a CI runner doing so) would never see the service stop.
+    /// </summary>
     public async Task<int> InterruptAsync(TimeSpan timeout)
     {
-        using (var kill = Process.Start(new ProcessStartInfo("kill", ["-INT", _process.Id.ToString(System.Globalization.CultureInfo.InvariantCulture)]) { UseShellExecute = false })!)
+        using (var kill = Process.Start(new ProcessStartInfo("kill", ["-TERM", _process.Id.ToString(System.Globalization.CultureInfo.InvariantCulture)]) { UseShellExecute = false })!)
         {
             await kill.WaitForExitAsync();
         }
@@ -97,7 +101,7 @@ public sealed class ServiceProcess : IDisposable
         }
         catch (OperationCanceledException)
         {
-            throw new TimeoutException($"the service (pid {_process.Id}) did not stop within {timeout} of SIGINT. Output:\n{Tail()}");
+            throw new TimeoutException($"the service (pid {_process.Id}) did not stop within {timeout} of SIGTERM. Output:\n{Tail()}");
         }
         return _process.ExitCode;
     }

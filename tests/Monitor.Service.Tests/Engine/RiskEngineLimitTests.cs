@@ -46,11 +46,12 @@ public sealed class RiskEngineLimitTests : IDisposable
         }
         Assert.Single(changes);
 
-        // Below 75% the warning clears: exactly one more event.
-        BookTo(version, 0.70);
+        // Below 75% the warning clears: exactly one more event. (Not 70%, the opening use: that trade's face would be
+        // 0 or a rounding residue, depending on the last bits of the DV01.)
+        BookTo(version, 0.69);
         Assert.Equal(2, changes.Count);
         Assert.Equal(LimitStatus.Within, changes[1].Current);
-        Assert.Equal(0.70, utilisations[^1], 1e-3);
+        Assert.Equal(0.69, utilisations[^1], 1e-3);
     }
 
     [Fact]

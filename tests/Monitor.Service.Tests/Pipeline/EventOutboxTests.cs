@@ -2,7 +2,10 @@ using Microsoft.Extensions.Diagnostics.HealthChecks;
 using Microsoft.Extensions.Logging.Abstractions;
 using Microsoft.Extensions.Options;
 using Microsoft.Extensions.Time.Testing;
+using Monitor.Analytics.Risk;
 using Monitor.Contracts.V1;
+using Monitor.Limits;
+using Monitor.Service.Engine;
 using Monitor.Service.Hosting;
 using Monitor.Service.Pipeline;
 using Monitor.Service.Tests.Support;
@@ -105,13 +108,12 @@ public sealed class EventOutboxTests
         ProcessedAt = Now,
     };
 
-    private static BookExposuresUpdated Book(string book, double value) => new()
-    {
-        Book = book,
-        Measures = new Dictionary<string, double> { ["marketValue"] = value },
-        Curves = [],
-        ComputedAt = Now,
-    };
+    private static BookFigures Book(string book, double value) => new(
+        new BookUpdate(book, BookExposures.FromTotals(new Dictionary<ExposureMeasure, double> { [ExposureMeasure.MarketValue] = value }),
+            new BookRisk(FactorExposures.Zero(3, 3), new Dictionary<string, FactorExposures>())),
+        [],
+        Cause.Internal("test", Now),
+        Now);
 
     private sealed class RunningOutbox(EventOutbox outbox) : IAsyncDisposable
     {
