@@ -254,7 +254,7 @@ public sealed class DiskFullTests(ITestOutputHelper output)
             var stopped = stopClock.Elapsed;
             var waiting = await ReadyAsync(publisher, FaultRig.InboundQueues);
             var refused = await ReadyAsync(publisher, FaultRig.InboundQueues.Select(q => q + "_error"));
-            output.WriteLine($"SIGINT while stalled: exit {exit} after {stopped.TotalSeconds:0.0} s; {waiting} messages back in the inbound queues, {refused} in error queues");
+            output.WriteLine($"stop signal (SIGTERM) while stalled: exit {exit} after {stopped.TotalSeconds:0.0} s; {waiting} messages back in the inbound queues, {refused} in error queues");
             Assert.Equal(0u, refused);
             // The held trade is in neither file: had the stop acknowledged it, the final check would count it lost.
             Assert.True(waiting > 0, "no message is back in the inbound queues after the stop: they were acknowledged");
@@ -266,7 +266,7 @@ public sealed class DiskFullTests(ITestOutputHelper output)
             var exit2 = await second.InterruptAsync(TimeSpan.FromSeconds(60));
             Assert.True(exit2 == 0, $"the restarted service exited with {exit2} after SIGINT. Output:\n{second.Tail()}");
 
-            await FaultFigures.AssertNothingLostOrDuplicatedAsync(rig, publisher, stream, "disk full, SIGINT while stalled, space freed, restart", output);
+            await FaultFigures.AssertNothingLostOrDuplicatedAsync(rig, publisher, stream, "disk full, SIGTERM while stalled, space freed, restart", output);
         }
         finally
         {
