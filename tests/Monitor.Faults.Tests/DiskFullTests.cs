@@ -212,7 +212,7 @@ public sealed class DiskFullTests(ITestOutputHelper output)
             await rig.WaitForDrainAsync(publisher, service, stream, DrainTimeout);
             await health.WaitForAsync("storage", "Healthy", service, TimeSpan.FromSeconds(30));
             var exit = await service.InterruptAsync(TimeSpan.FromSeconds(60));
-            Assert.True(exit == 0, $"the service exited with {exit} after SIGINT. Output:\n{service.Tail()}");
+            Assert.True(exit == 0, $"the service exited with {exit} after SIGTERM. Output:\n{service.Tail()}");
 
             var lines = service.Output.Split('\n');
             var failing = lines.Count(l => l.Contains("failing: write to", StringComparison.Ordinal));
@@ -264,7 +264,7 @@ public sealed class DiskFullTests(ITestOutputHelper output)
             second = rig.StartService(health.ServiceEnvironment);
             await rig.WaitForDrainAsync(publisher, second, stream, DrainTimeout);
             var exit2 = await second.InterruptAsync(TimeSpan.FromSeconds(60));
-            Assert.True(exit2 == 0, $"the restarted service exited with {exit2} after SIGINT. Output:\n{second.Tail()}");
+            Assert.True(exit2 == 0, $"the restarted service exited with {exit2} after SIGTERM. Output:\n{second.Tail()}");
 
             await FaultFigures.AssertNothingLostOrDuplicatedAsync(rig, publisher, stream, "disk full, SIGTERM while stalled, space freed, restart", output);
         }
