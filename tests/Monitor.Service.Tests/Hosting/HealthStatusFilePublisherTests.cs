@@ -1,0 +1,50 @@
+using System.Text.Json.Nodes;
+using Microsoft.Extensions.Diagnostics.HealthChecks;
+using Microsoft.Extensions.Logging.Abstractions;
+using Microsoft.Extensions.Options;
+using Monitor.Service.Hosting;
+using Monitor.Service.Tests.Support;
+
+namespace Monitor.Service.Tests.Hosting;
+
+/// <summary>The health report file, the service's probe in place of an HTTP endpoint.</summary>
+public sealed class HealthStatusFilePublisherTests
+{
+    [Fact]
+    public async Task Each_report_replaces_the_file_with_the_overall_and_per_check_status()
+    {
+        using var folder = new TempFolder();
+        var file = folder.Combine("health.json");
+        var publisher = new HealthStatusFilePublisher(
+            Options.Create(new HealthOptions { StatusFile = file }), TimeProvider.System, NullLogger<HealthStatusFilePublisher>.Instance);
+
+        await publisher.PublishAsync(Report(HealthStatus.Unhealthy, "storage failing, pipeline stalled: trade-journal: No space left on device"), CancellationToken.None);
+        var unhealthy = JsonNode.Parse(File.ReadAllText(file))!;
+        Assert.Equal("Unhealthy", (string?)unhealthy["status"]);
+        Assert.Equal("Unhealthy", (string?)unhealthy["entries"]!["storage"]!["status"]);
+        Assert.Contains("No space left on device", (string?)unhealthy["entries"]!["storage"]!["description"], StringComparison.Ordinal);
+        Assert.Equal("Healthy", (string?)unhealthy["entries"]!["curves"]!["status"]);
+
+        await publisher.PublishAsync(Report(HealthStatus.Healthy, "storage writable"), CancellationToken.None);
+        var healthy = JsonNode.Parse(File.ReadAllText(file))!;
+        Assert.Equal("Healthy", (string?)healthy["status"]);
+        Assert.Equal("storage writable", (string?)healthy["entries"]!["storage"]!["description"]);
+        Assert.False(File.Exists(file + ".tmp"));
+    }
+
+    [Fact]
+    public void A_period_under_a_second_is_refused_naming_the_key()
+    {
+        var failures = new HealthOptions { Period = TimeSpan.FromMilliseconds(200) }.Validate();
+
+        Assert.Contains("Health:Period", Assert.Single(failures), StringComparison.Ordinal);
+    }
+
+    private static HealthReport Report(HealthStatus storage, string description) => new(
+        new Dictionary<string, HealthReportEntry>
+        {
+            ["storage"] = new(storage, description, TimeSpan.Zero, null, null),
+            ["curves"] = new(HealthStatus.Healthy, "curves fresh", TimeSpan.Zero, null, null),
+        },
+        TimeSpan.Zero);
+}
