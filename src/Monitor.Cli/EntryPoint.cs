@@ -13,8 +13,13 @@ internal static class EntryPoint
         {
             root.Subcommands.Add(verb);
         }
-        return root.Parse(args).Invoke();
+        // A stopping service drains its outbox and lets held consumers return their messages to the broker; the
+        // parser's default of 2 s after SIGTERM/Ctrl+C would cut that short. The host's own stop is bounded below this.
+        return root.Parse(args).Invoke(new InvocationConfiguration { ProcessTerminationTimeout = ShutdownAllowance });
     }
+
+    /// <summary>How long a verb has to stop after SIGTERM or Ctrl+C before the process ends anyway.</summary>
+    public static readonly TimeSpan ShutdownAllowance = TimeSpan.FromSeconds(45);
 
     private static IEnumerable<Command> Verbs()
     {

@@ -352,6 +352,25 @@ public sealed partial class RiskPipeline
     }
 
     /// <summary>
+    /// Logs and publishes what the start-up replay of the journal changed (its refit: curves, books, limit statuses),
+    /// with cause <c>journal-replay</c>, so every status the restarted service holds has its record and its event.
+    /// </summary>
+    public async Task CommitRecoveryAsync(EngineResult replayRefit, CancellationToken cancellationToken)
+    {
+        ArgumentNullException.ThrowIfNull(replayRefit);
+        await _gate.WaitAsync(cancellationToken).ConfigureAwait(false);
+        try
+        {
+            var now = _time.GetUtcNow();
+            await CommitAsync(replayRefit, Cause.Internal("journal-replay", now), now, cancellationToken).ConfigureAwait(false);
+        }
+        finally
+        {
+            _gate.Release();
+        }
+    }
+
+    /// <summary>
     /// Writes the <c>trade-applied</c> records that a crash between the journal's fsync and the log write left out,
     /// for trades the start-up replay applied from the journal. Returns how many were written.
     /// </summary>

@@ -11,7 +11,7 @@ namespace Monitor.Service.Pipeline;
 
 /// <summary>
 /// Runs once the bus is up: builds the engine (instruments, positions, limits: a bad file stops the start; then
-/// today's trade journal replayed), reports what the replay did, then fits the opening curves from the opening quotes file when one is configured, publishing the result.
+/// today's trade journal replayed), reports what the replay did and logs and publishes its refit, then fits the opening curves from the opening quotes file when one is configured, publishing the result.
 /// </summary>
 public sealed partial class StartOfDayService(RiskPipeline pipeline, EngineRecovery recovery, IOptions<MonitorOptions> options, IOptions<ExposureLogOptions> log, ILogger<StartOfDayService> logger)
     : IHostedService
@@ -33,6 +33,11 @@ public sealed partial class StartOfDayService(RiskPipeline pipeline, EngineRecov
         if (restored > 0)
         {
             LogAuditRestored(restored);
+        }
+        if (replay.Refit.Curves.Count + replay.Refit.StatusChanges.Count + replay.Refit.Books.Count > 0)
+        {
+            // The replay's refit changed curves, books and limit statuses before the pipeline ran: record and publish it.
+            await pipeline.CommitRecoveryAsync(replay.Refit, cancellationToken).ConfigureAwait(false);
         }
         if (options.Value.OpeningQuotesFile is { Length: > 0 } path)
         {

@@ -1,3 +1,5 @@
+using MassTransit.Testing;
+using Microsoft.Extensions.DependencyInjection;
 using Microsoft.Extensions.Time.Testing;
 using Monitor.Service.Audit;
 using Monitor.Service.Engine;
@@ -38,6 +40,29 @@ public class RestartRecoveryTests
         var log = ExposureLogVerifier.VerifyFolder(second.LogFolder);
         Assert.True(log.Intact, string.Join("; ", log.Problems));
         Assert.True(log.LastSeq > lastSeq, "the second run appends to the same chain");
+    }
+
+    [Fact]
+    public async Task The_replay_refit_is_logged_and_published_as_journal_replay()
+    {
+        using var root = new TempFolder();
+        await using (var first = await ServiceUnderTest.StartAsync(root: root.Path))
+        {
+            await first.TradeAsync(ServiceUnderTest.Trade("R-1", 1, "new", "RATES-CORE", "VGB-2031-05", 5_000_000));
+        }
+
+        await using var second = await ServiceUnderTest.StartAsync(root: root.Path);
+        await second.Pipeline.WhenPublishedAsync();
+        var replay = second.Services.GetRequiredService<EngineRecovery>().Result.Refit;
+        var replayRecords = File.ReadAllLines(Directory.GetFiles(second.LogFolder, "*.jsonl").Single())
+            .Where(l => l.Contains("\"journal-replay\"", StringComparison.Ordinal)).ToArray();
+
+        // The journalled quotes refit the curves before the pipeline runs; each status the refit moved has its record and event.
+        Assert.NotEmpty(replay.Curves);
+        Assert.Equal(replay.Curves.Count, replayRecords.Count(l => l.Contains("\"kind\":\"curve-", StringComparison.Ordinal)));
+        Assert.Equal(replay.StatusChanges.Count, replayRecords.Count(l => l.Contains("\"kind\":\"status-change\"", StringComparison.Ordinal)));
+        Assert.Equal(replay.StatusChanges.Count, second.Harness.Published.Select<Monitor.Contracts.V1.LimitStatusChanged>().Count(m => m.Context.Message.CauseMessageType == "journal-replay"));
+        Assert.True(second.VerifyLog().Intact);
     }
 
     [Fact]
