@@ -9,8 +9,6 @@ namespace Monitor.Service.Audit;
 /// </summary>
 public sealed class ExposureLogBatch
 {
-    private static readonly JsonSerializerOptions PayloadJson = new() { WriteIndented = false };
-
     private readonly List<(string Kind, DateTimeOffset EventTime, ExposureLogCause Cause, JsonElement Payload)> _entries = [];
 
     public int Count => _entries.Count;
@@ -25,17 +23,7 @@ public sealed class ExposureLogBatch
     public void Add(string kind, DateTimeOffset eventTime, ExposureLogCause cause, IReadOnlyDictionary<string, object?> payload)
     {
         ArgumentNullException.ThrowIfNull(cause);
-        ArgumentNullException.ThrowIfNull(payload);
-        JsonElement element;
-        try
-        {
-            element = JsonSerializer.SerializeToElement(payload, PayloadJson);
-        }
-        catch (Exception ex) when (ex is ArgumentException or JsonException or NotSupportedException or InvalidOperationException)
-        {
-            throw new ArgumentException($"payload of a '{kind}' record cannot be written as JSON: {ex.Message}", nameof(payload), ex);
-        }
-        _entries.Add((kind, eventTime, cause, element));
+        _entries.Add((kind, eventTime, cause, ExposureLogPayload.ToJson(payload, $"payload of a '{kind}' record")));
     }
 
     internal (string Kind, DateTimeOffset EventTime, ExposureLogCause Cause, JsonElement Payload) this[int index] => _entries[index];

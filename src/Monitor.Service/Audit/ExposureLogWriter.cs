@@ -16,7 +16,6 @@ namespace Monitor.Service.Audit;
 /// </summary>
 public sealed partial class ExposureLogWriter : IDisposable
 {
-    private static readonly JsonSerializerOptions PayloadJson = new() { WriteIndented = false };
 
     private readonly Lock _gate = new();
     private readonly ExposureLogOptions _options;
@@ -115,18 +114,7 @@ public sealed partial class ExposureLogWriter : IDisposable
     /// <exception cref="ArgumentException">A value cannot be written as JSON (NaN, infinity, a cycle).</exception>
     public ExposureLogRecord Append(string kind, DateTimeOffset eventTime, ExposureLogCause cause, IReadOnlyDictionary<string, object?> payload)
     {
-        ArgumentNullException.ThrowIfNull(payload);
-        JsonElement element;
-        try
-        {
-            element = JsonSerializer.SerializeToElement(payload, PayloadJson);
-        }
-        catch (Exception ex) when (ex is ArgumentException or JsonException or NotSupportedException or InvalidOperationException)
-        {
-            throw new ArgumentException($"payload cannot be written as JSON: {ex.Message}", nameof(payload), ex);
-        }
-
-        return Append(kind, eventTime, cause, element);
+        return Append(kind, eventTime, cause, ExposureLogPayload.ToJson(payload, "payload"));
     }
 
     /// <summary>
@@ -282,7 +270,7 @@ public sealed partial class ExposureLogWriter : IDisposable
                 ["removedBytes"] = repair.Fragment.Length,
                 ["removedBase64"] = Convert.ToBase64String(repair.Fragment),
             },
-            PayloadJson);
+            ExposureLogPayload.Json);
         Write(ExposureLogKinds.LogRepaired, _time.GetUtcNow(), new ExposureLogCause(null, "writer-start"), payload);
     }
 
