@@ -1,5 +1,6 @@
 using System.Diagnostics;
 using Monitor.Faults.Tests.Support;
+using Monitor.Service.Hosting;
 using Xunit.Abstractions;
 
 namespace Monitor.Faults.Tests;
@@ -7,7 +8,7 @@ namespace Monitor.Faults.Tests;
 /// <summary>
 /// Broker restart under load: RabbitMQ's application is stopped and started (`rabbitmqctl stop_app` / `start_app`)
 /// while the service works through a backlog. The service must reconnect by itself, report the lost connection in
-/// its log, and end with exactly the positions the stream implies.
+/// its log and as an unhealthy "bus" check in its health report, and end with exactly the positions the stream implies.
 /// </summary>
 [Trait("Category", "Fault")]
 public sealed class BrokerRestartTests(ITestOutputHelper output)
@@ -25,14 +26,16 @@ public sealed class BrokerRestartTests(ITestOutputHelper output)
         var firstPart = stream.Messages.Count / 2;
         using var cts = new CancellationTokenSource(TimeSpan.FromMinutes(3));
 
+        var health = new HealthStatusFile(Path.Combine(rig.Folder, "health.json"));
         ServiceProcess? service = null;
         Publisher? publisher = null;
         var brokerStopped = false;
         try
         {
-            service = rig.StartService();
+            service = rig.StartService(health.ServiceEnvironment);
             publisher = await Publisher.ConnectAsync(rig.VirtualHost);
             await FaultRig.WaitForQueuesAsync(publisher, service, StartTimeout);
+            await health.WaitForAsync(ServiceRegistration.BusHealthCheckName, "Healthy", service, StartTimeout);
             foreach (var message in stream.Messages.Take(firstPart))
             {
                 await publisher.PublishAsync(message, cts.Token);
@@ -49,9 +52,16 @@ public sealed class BrokerRestartTests(ITestOutputHelper output)
             brokerStopped = true;
             await BrokerAdmin.StopAppAsync();
             var journalledAtStop = rig.JournalFiles().Sum(f => f.Trades.Count);
-            await Task.Delay(Outage, cts.Token);
+            var outage = Stopwatch.StartNew();
+            var unhealthy = await health.WaitForAsync(ServiceRegistration.BusHealthCheckName, "Unhealthy", service, Outage + TimeSpan.FromSeconds(10));
+            output.WriteLine($"health 'bus' Unhealthy {outage.Elapsed.TotalSeconds:F1} s into the outage: {unhealthy}");
+            if (outage.Elapsed < Outage)
+            {
+                await Task.Delay(Outage - outage.Elapsed, cts.Token);
+            }
             await BrokerAdmin.StartAppAsync();
             brokerStopped = false;
+            await health.WaitForAsync(ServiceRegistration.BusHealthCheckName, "Healthy", service, TimeSpan.FromSeconds(60));
             output.WriteLine($"broker stopped after {journalledAtStop} journalled trade versions of {stream.TradeMessages} ({firstPart} messages published), down for {Outage.TotalSeconds} s");
             Assert.True(journalledAtStop < stream.TradeMessages, "the broker stop came after every trade was processed; it proves nothing");
 

@@ -15,6 +15,9 @@ namespace Monitor.Service.Hosting;
 /// <summary>Wires the service: options validated on start, the engine, the pipeline and its workers, the exposure log, the bus, health.</summary>
 public static class ServiceRegistration
 {
+    /// <summary>Name of the bus health check (receive endpoints connected to the broker) in health reports.</summary>
+    public const string BusHealthCheckName = "bus";
+
     public static IServiceCollection AddMonitorService(this IServiceCollection services, IConfiguration configuration, Action<IBusRegistrationConfigurator>? extraConsumers = null) =>
         AddMonitorServiceCore(services, configuration, extraConsumers, static (s, bus) => s.AddMassTransit(bus));
 
@@ -111,6 +114,7 @@ public static class ServiceRegistration
             .AddCheck<CurveHealthCheck>("curves")
             .AddCheck<JournalHealthCheck>("trade-journal")
             .AddCheck<EventOutboxHealthCheck>("event-outbox")
+            .AddCheck<BusConnectionHealthCheck>(BusHealthCheckName)
             .AddCheck<StorageHealthCheck>("storage");
         // No HTTP endpoint: the reports are logged on each status change and written to Health:StatusFile when set.
         services.AddSingleton<IHealthCheckPublisher, HealthStatusFilePublisher>();
