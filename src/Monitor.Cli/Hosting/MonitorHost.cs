@@ -36,6 +36,8 @@ internal static class MonitorHost
             {
                 logger.MinimumLevel.Information()
                     .MinimumLevel.Override("MassTransit", Serilog.Events.LogEventLevel.Warning)
+                    // HealthStatusFilePublisher logs each change of health; the check service would log every failing run.
+                    .MinimumLevel.Override("Microsoft.Extensions.Diagnostics.HealthChecks", Serilog.Events.LogEventLevel.Fatal)
                     .WriteTo.Console(formatProvider: System.Globalization.CultureInfo.InvariantCulture);
             }
         }, preserveStaticLogger: true);
