@@ -24,7 +24,7 @@ public sealed class DiskFullTests(ITestOutputHelper output)
     [Fact]
     public void Exposure_log_append_on_a_full_disk_fails_cleanly_and_the_same_append_succeeds_once_space_is_freed()
     {
-        using var folder = new WorkFolder();
+        using var folder = new Monitor.Service.Tests.Support.TempFolder();
         using var disk = TmpfsMount.Create(folder.Combine("log"), 256 * 1024);
         var options = new ExposureLogOptions { Folder = disk.Folder, FlushToDisk = true };
         var written = 0;
@@ -79,7 +79,7 @@ public sealed class DiskFullTests(ITestOutputHelper output)
     [Fact]
     public async Task Journal_append_on_a_full_disk_fails_cleanly_and_the_same_trade_is_written_once_when_space_is_freed()
     {
-        using var folder = new WorkFolder();
+        using var folder = new Monitor.Service.Tests.Support.TempFolder();
         using var disk = TmpfsMount.Create(folder.Combine("journal"), 256 * 1024);
         var written = new List<string>();
         await using (var journal = new TradeJournal(new JournalOptions { Folder = disk.Folder }, TimeProvider.System))
@@ -127,7 +127,7 @@ public sealed class DiskFullTests(ITestOutputHelper output)
     [Fact]
     public async Task A_log_append_held_by_the_storage_gate_waits_out_the_full_disk_and_is_written_once()
     {
-        using var folder = new WorkFolder();
+        using var folder = new Monitor.Service.Tests.Support.TempFolder();
         using var disk = TmpfsMount.Create(folder.Combine("log"), 256 * 1024);
         var gate = new StorageFaultGate(Options.Create(new StorageOptions()), TimeProvider.System, NullLogger<StorageFaultGate>.Instance);
         using var writer = new ExposureLogWriter(new ExposureLogOptions { Folder = disk.Folder, FlushToDisk = true }, TimeProvider.System);
