@@ -71,6 +71,7 @@ internal static class LoadRunner
             ["ExposureLog:FlushToDisk"] = options.LogFlushToDisk ? "true" : "false",
         };
         var serviceLog = Path.Combine(options.WorkDir, "monitor.log");
+        using var stages = new ServiceStages();
         using var host = MonitorHost.InProcess(
             settings,
             log => log.MinimumLevel.Information()
@@ -99,7 +100,7 @@ internal static class LoadRunner
         {
             var quotes = await publisher.GetSendEndpoint(new Uri($"queue:{InboundEndpoints.Quotes}")).ConfigureAwait(false);
             var trades = await publisher.GetSendEndpoint(new Uri($"queue:{InboundEndpoints.Trades}")).ConfigureAwait(false);
-            return await BothPhasesAsync("service", options, bonds, quotes, trades, t => Volatile.Write(ref current, t), counter, progress, cancellationToken).ConfigureAwait(false);
+            return await BothPhasesAsync("service", options, bonds, quotes, trades, t => Volatile.Write(ref current, t), counter, stages, progress, cancellationToken).ConfigureAwait(false);
         }
         finally
         {
@@ -129,7 +130,7 @@ internal static class LoadRunner
         try
         {
             var quotes = await publisher.GetSendEndpoint(new Uri($"queue:{BareQueue}")).ConfigureAwait(false);
-            return await BothPhasesAsync("bare", options, bonds, quotes, null, t => Volatile.Write(ref current, t), counter, progress, cancellationToken).ConfigureAwait(false);
+            return await BothPhasesAsync("bare", options, bonds, quotes, null, t => Volatile.Write(ref current, t), counter, null, progress, cancellationToken).ConfigureAwait(false);
         }
         finally
         {
@@ -140,9 +141,9 @@ internal static class LoadRunner
 
     /// <summary>The paced phase, then the throughput phase, merged into one result.</summary>
     private static async Task<PhaseResult> BothPhasesAsync(string name, LoadOptions options, IReadOnlyList<Monitor.Analytics.Instruments.Bond> bonds, ISendEndpoint quotes, ISendEndpoint? trades,
-        Action<LatencyTracker?> setCurrent, ConsumptionCounter counter, TextWriter progress, CancellationToken cancellationToken)
+        Action<LatencyTracker?> setCurrent, ConsumptionCounter counter, ServiceStages? stages, TextWriter progress, CancellationToken cancellationToken)
     {
-        var paced = await PacedPhaseAsync(name, options, bonds, quotes, trades, setCurrent, counter, progress, cancellationToken).ConfigureAwait(false);
+        var paced = await PacedPhaseAsync(name, options, bonds, quotes, trades, setCurrent, counter, stages, progress, cancellationToken).ConfigureAwait(false);
         var throughput = await ThroughputPhaseAsync(name, options, bonds, quotes, setCurrent, counter, progress, cancellationToken).ConfigureAwait(false);
         return paced with
         {
@@ -157,7 +158,7 @@ internal static class LoadRunner
 
     /// <summary>Warm-up then the measured paced run; waits for the events (or consumption) to drain, at most 30 s.</summary>
     private static async Task<PhaseResult> PacedPhaseAsync(string mode, LoadOptions options, IReadOnlyList<Monitor.Analytics.Instruments.Bond> bonds,
-        ISendEndpoint quotes, ISendEndpoint? trades, Action<LatencyTracker?> setTracker, ConsumptionCounter counter, TextWriter progress, CancellationToken cancellationToken)
+        ISendEndpoint quotes, ISendEndpoint? trades, Action<LatencyTracker?> setTracker, ConsumptionCounter counter, ServiceStages? stages, TextWriter progress, CancellationToken cancellationToken)
     {
         var pacer = new Pacer(options.Rate);
         var warmup = pacer.CountFor(options.WarmupSeconds);
@@ -184,6 +185,7 @@ internal static class LoadRunner
             if (i == warmup)
             {
                 measuredFrom = clock.Elapsed;
+                stages?.Measuring = true;
             }
             var quote = stream.Next(i, DateTimeOffset.UtcNow);
             var id = NewId.NextGuid();
@@ -212,10 +214,15 @@ internal static class LoadRunner
         await WaitForAsync(() => counter.Count - baseline >= total, TimeSpan.FromMinutes(3), cancellationToken).ConfigureAwait(false);
         await DrainAsync(() => tracker.CurveEvents + tracker.StatusEvents + tracker.BookEvents + counter.Count, TimeSpan.FromSeconds(2), TimeSpan.FromSeconds(30), cancellationToken).ConfigureAwait(false);
         setTracker(null);
+        stages?.Measuring = false;
         tracker.Finish();
         var latencies = trades is null
             ? new[] { tracker.Consumed.Summary() }
             : [tracker.Consumed.Summary(), tracker.Curve.Summary(), tracker.AnyQuoteCurve.Summary(), tracker.Status.Summary(), tracker.BooksFirst.Summary(), tracker.BooksLast.Summary()];
+        if (stages is not null)
+        {
+            latencies = [.. latencies, .. stages.Summaries()];
+        }
         return new PhaseResult(mode, measured, seconds, measured / seconds, latencies, tracker.CurveEvents, tracker.StatusEvents, tracker.BookEvents, tradesSent, 0, 0, 0, 0, 0, 0);
     }
 

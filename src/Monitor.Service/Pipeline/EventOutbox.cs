@@ -5,6 +5,7 @@ using Microsoft.Extensions.Logging;
 using Microsoft.Extensions.Options;
 using Monitor.Contracts.V1;
 using Monitor.Service.Hosting;
+using Monitor.Service.Telemetry;
 
 namespace Monitor.Service.Pipeline;
 
@@ -32,10 +33,11 @@ public sealed partial class EventOutbox : BackgroundService
     private static readonly TimeSpan LongestRetry = TimeSpan.FromSeconds(5);
 
     private readonly IBus _bus;
+    private readonly MonitorMetrics _metrics;
     private readonly TimeProvider _time;
     private readonly ILogger<EventOutbox> _logger;
     private readonly TimeSpan _bookInterval;
-    private readonly Channel<IReadOnlyList<object>> _queue = Channel.CreateBounded<IReadOnlyList<object>>(
+    private readonly Channel<QueuedChange> _queue = Channel.CreateBounded<QueuedChange>(
         new BoundedChannelOptions(Capacity) { SingleReader = true, FullMode = BoundedChannelFullMode.Wait });
     private readonly Lock _booksSync = new();
     private Dictionary<string, BookFigures> _pendingBooks = new(StringComparer.Ordinal);
@@ -47,10 +49,11 @@ public sealed partial class EventOutbox : BackgroundService
     private string? _lastError;
     private DateTimeOffset? _failingSince;
 
-    public EventOutbox(IBus bus, IOptions<MonitorOptions> options, TimeProvider time, ILogger<EventOutbox> logger)
+    public EventOutbox(IBus bus, IOptions<MonitorOptions> options, MonitorMetrics metrics, TimeProvider time, ILogger<EventOutbox> logger)
     {
         ArgumentNullException.ThrowIfNull(options);
         _bus = bus;
+        _metrics = metrics;
         _time = time;
         _logger = logger;
         _bookInterval = options.Value.BookEventInterval;
@@ -123,8 +126,9 @@ public sealed partial class EventOutbox : BackgroundService
         {
             await foreach (var change in _queue.Reader.ReadAllAsync(stoppingToken).ConfigureAwait(false))
             {
-                await PublishAsync(change, stoppingToken).ConfigureAwait(false);
+                await PublishAsync(change.Events, stoppingToken).ConfigureAwait(false);
                 Interlocked.Decrement(ref _backlog);
+                _metrics.EventDelay.Record(_time.GetElapsedTime(change.QueuedAt).TotalMilliseconds);
             }
         }
         catch (OperationCanceledException) when (stoppingToken.IsCancellationRequested)
@@ -137,19 +141,20 @@ public sealed partial class EventOutbox : BackgroundService
     private ValueTask WriteAsync(IReadOnlyList<object> events, CancellationToken cancellationToken)
     {
         Interlocked.Increment(ref _backlog);
-        if (_queue.Writer.TryWrite(events))
+        var change = new QueuedChange(events, _time.GetTimestamp());
+        if (_queue.Writer.TryWrite(change))
         {
             return ValueTask.CompletedTask;
         }
-        return WaitToWriteAsync(events, cancellationToken);
+        return WaitToWriteAsync(change, cancellationToken);
     }
 
-    private async ValueTask WaitToWriteAsync(IReadOnlyList<object> events, CancellationToken cancellationToken)
+    private async ValueTask WaitToWriteAsync(QueuedChange change, CancellationToken cancellationToken)
     {
         LogQueueFull(Capacity);
         try
         {
-            await _queue.Writer.WriteAsync(events, cancellationToken).ConfigureAwait(false);
+            await _queue.Writer.WriteAsync(change, cancellationToken).ConfigureAwait(false);
         }
         catch
         {
@@ -273,6 +278,9 @@ public sealed partial class EventOutbox : BackgroundService
             }
         }
     }
+
+    /// <summary>One change's events and when they were handed over (<see cref="TimeProvider.GetTimestamp"/>).</summary>
+    private readonly record struct QueuedChange(IReadOnlyList<object> Events, long QueuedAt);
 
     [LoggerMessage(Level = LogLevel.Error, Message = "Publishing events failed ({Count} waiting): {Reason}; retrying until the broker confirms them")]
     private partial void LogPublishingFailed(int count, string reason);

@@ -134,6 +134,7 @@ public sealed partial class RiskPipeline
                 _pendingCause.Remove(key);
             }
             await CommitAsync(result, cause, now, cancellationToken).ConfigureAwait(false);
+            _metrics.RefitDuration.Record(_time.GetElapsedTime(started).TotalMilliseconds);
         }
         finally
         {
@@ -337,7 +338,9 @@ public sealed partial class RiskPipeline
     {
         if (batch.Count > 0)
         {
+            var started = _time.GetTimestamp();
             await _storage.RunAsync(StorageFaultGate.ExposureLog, () => _log.Append(batch), cancellationToken).ConfigureAwait(false);
+            _metrics.LogWriteDuration.Record(_time.GetElapsedTime(started).TotalMilliseconds);
         }
     }
 

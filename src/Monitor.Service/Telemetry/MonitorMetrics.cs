@@ -21,6 +21,9 @@ public sealed class MonitorMetrics : IDisposable
         FitDuration = _meter.CreateHistogram<double>("monitor.curve.fit.duration", unit: "ms", description: "Time to refit one curve.");
         ExposureDuration = _meter.CreateHistogram<double>("monitor.exposure.duration", unit: "ms", description: "Time to recompute the books after a change.");
         QueueLag = _meter.CreateHistogram<double>("monitor.queue.lag", unit: "ms", description: "Processing time minus the message's event time.");
+        RefitDuration = _meter.CreateHistogram<double>("monitor.refit.duration", unit: "ms", description: "Time a refit holds the pipeline: fits, revaluation, limits, exposure log, hand-off to the outbox.");
+        LogWriteDuration = _meter.CreateHistogram<double>("monitor.exposure_log.write.duration", unit: "ms", description: "Time to write one change's records to the exposure log, flush to disk included.");
+        EventDelay = _meter.CreateHistogram<double>("monitor.events.delay", unit: "ms", description: "Time from a change's hand-off to the outbox until the broker confirmed all its events.");
         StatusChanges = _meter.CreateCounter<long>("monitor.limit.status.changes", unit: "{event}", description: "Limit status changes published.");
         StorageWriteFailures = _meter.CreateCounter<long>("monitor.storage.write.failures", unit: "{attempt}", description: "Durable writes that failed for a storage reason and are retried, by store.");
         StoresFailing = _meter.CreateUpDownCounter<int>("monitor.storage.failing", unit: "{store}", description: "Stores (exposure log, trade journal) whose writes are failing now; the pipeline stalls while above 0.");
@@ -35,6 +38,12 @@ public sealed class MonitorMetrics : IDisposable
     public Histogram<double> ExposureDuration { get; }
 
     public Histogram<double> QueueLag { get; }
+
+    public Histogram<double> RefitDuration { get; }
+
+    public Histogram<double> LogWriteDuration { get; }
+
+    public Histogram<double> EventDelay { get; }
 
     public Counter<long> StatusChanges { get; }
 

@@ -1,3 +1,4 @@
+using Microsoft.Extensions.DependencyInjection;
 using Microsoft.Extensions.Diagnostics.HealthChecks;
 using Microsoft.Extensions.Logging.Abstractions;
 using Microsoft.Extensions.Options;
@@ -8,6 +9,7 @@ using Monitor.Limits;
 using Monitor.Service.Engine;
 using Monitor.Service.Hosting;
 using Monitor.Service.Pipeline;
+using Monitor.Service.Telemetry;
 using Monitor.Service.Tests.Support;
 
 namespace Monitor.Service.Tests.Pipeline;
@@ -83,10 +85,13 @@ public sealed class EventOutboxTests
         Assert.Equal(HealthStatus.Healthy, (await health.CheckHealthAsync(new HealthCheckContext())).Status);
     }
 
+    private static readonly MonitorMetrics Metrics =
+        new(new ServiceCollection().AddMetrics().BuildServiceProvider().GetRequiredService<System.Diagnostics.Metrics.IMeterFactory>());
+
     private static async Task<RunningOutbox> Running(MassTransit.IBus bus, TimeSpan bookInterval, TimeProvider time)
     {
         var options = Options.Create(new MonitorOptions { BookEventInterval = bookInterval });
-        var outbox = new EventOutbox(bus, options, time, NullLogger<EventOutbox>.Instance);
+        var outbox = new EventOutbox(bus, options, Metrics, time, NullLogger<EventOutbox>.Instance);
         await outbox.StartAsync(CancellationToken.None);
         return new RunningOutbox(outbox);
     }
