@@ -16,6 +16,9 @@ public class ContractSurfaceTests
           required DateTimeOffset QuoteTime
           required String Source
           Double? Yield
+        record Monitor.Contracts.V1.BookExposuresBatch
+          required IReadOnlyList<BookExposuresUpdated> Books
+          required DateTimeOffset PublishedAt
         record Monitor.Contracts.V1.BookExposuresUpdated
           required String Book
           Guid? CauseMessageId

@@ -10,7 +10,7 @@ internal static class JsonExamples
     public static readonly string[] Messages =
     [
         "InstrumentDefined", "BondQuoted", "ParYieldsPublished", "TradeBooked",
-        "CurveFitted", "CurveRejected", "BookExposuresUpdated", "LimitStatusChanged",
+        "CurveFitted", "CurveRejected", "BookExposuresBatch", "BookExposuresUpdated", "LimitStatusChanged",
     ];
 
     /// <summary>Web defaults (camelCase, case-insensitive read), strict about unknown and null-for-non-nullable fields.</summary>

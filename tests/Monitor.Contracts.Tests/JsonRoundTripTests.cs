@@ -44,6 +44,11 @@ public class JsonRoundTripTests
         var exposures = JsonSerializer.Deserialize<BookExposuresUpdated>(JsonExamples.Read("BookExposuresUpdated"), JsonExamples.Strict)!;
         Assert.Equal(318400, exposures.Measures["dv01"]);
         Assert.Equal(57, Assert.Single(exposures.Curves).Version);
+
+        var batch = JsonSerializer.Deserialize<BookExposuresBatch>(JsonExamples.Read("BookExposuresBatch"), JsonExamples.Strict)!;
+        Assert.Equal(["govt-long", "govt-short"], batch.Books.Select(b => b.Book));
+        Assert.Equal(-6410, batch.Books[1].Measures["baseSlope"]);
+        Assert.Equal(new DateTimeOffset(2026, 12, 1, 9, 30, 1, 250, TimeSpan.Zero), batch.PublishedAt);
     }
 
     [Fact]

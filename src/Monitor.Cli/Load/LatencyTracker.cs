@@ -6,8 +6,8 @@ namespace Monitor.Cli.Load;
 /// <summary>
 /// Matches outbound events to the quotes that caused them (the event's CauseMessageId is the quote's MessageId) and
 /// records publish -> receipt latencies, both on this process's <see cref="Stopwatch"/>. Only quotes registered as
-/// measured (after the warm-up) count. Kinds: the first CurveFitted, LimitStatusChanged and BookExposuresUpdated per
-/// cause quote, the last BookExposuresUpdated per cause (all books revalued), and "any quote -> curve": every quote
+/// measured (after the warm-up) count. Kinds: the first CurveFitted, LimitStatusChanged and book entry (BookExposuresBatch) per
+/// cause quote, the last book entry per cause (all books revalued), and "any quote -> curve": every quote
 /// published up to a fit's cause quote is reflected in that fit (the service takes the latest quote of the conflation
 /// window as the cause), so its latency is the fit's receipt minus its own publish time, conflation wait included.
 /// </summary>
@@ -39,9 +39,9 @@ internal sealed class LatencyTracker
 
     public LatencyRecorder Status { get; } = new("quote -> LimitStatusChanged");
 
-    public LatencyRecorder BooksFirst { get; } = new("quote -> first BookExposuresUpdated");
+    public LatencyRecorder BooksFirst { get; } = new("quote -> first book figures");
 
-    public LatencyRecorder BooksLast { get; } = new("quote -> last BookExposuresUpdated");
+    public LatencyRecorder BooksLast { get; } = new("quote -> last book figures");
 
     public LatencyRecorder Consumed { get; } = new("quote -> consumed");
 

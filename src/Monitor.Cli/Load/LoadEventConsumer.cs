@@ -5,7 +5,7 @@ using Monitor.Contracts.V1;
 namespace Monitor.Cli.Load;
 
 /// <summary>Hands the service's outbound events to the <see cref="LatencyTracker"/> of the phase running (read through <paramref name="tracker"/>), stamped on receipt.</summary>
-internal sealed class LoadEventConsumer(Func<LatencyTracker?> tracker) : IConsumer<CurveFitted>, IConsumer<LimitStatusChanged>, IConsumer<BookExposuresUpdated>
+internal sealed class LoadEventConsumer(Func<LatencyTracker?> tracker) : IConsumer<CurveFitted>, IConsumer<LimitStatusChanged>, IConsumer<BookExposuresBatch>
 {
     public Task Consume(ConsumeContext<CurveFitted> context)
     {
@@ -19,9 +19,13 @@ internal sealed class LoadEventConsumer(Func<LatencyTracker?> tracker) : IConsum
         return Task.CompletedTask;
     }
 
-    public Task Consume(ConsumeContext<BookExposuresUpdated> context)
+    public Task Consume(ConsumeContext<BookExposuresBatch> context)
     {
-        tracker()?.OnBookUpdated(context.Message.CauseMessageId, Stopwatch.GetTimestamp());
+        var received = Stopwatch.GetTimestamp();
+        foreach (var book in context.Message.Books)
+        {
+            tracker()?.OnBookUpdated(book.CauseMessageId, received);
+        }
         return Task.CompletedTask;
     }
 }

@@ -1,8 +1,8 @@
 namespace Monitor.Contracts.V1;
 
 /// <summary>
-/// Outbound: a book's exposures after a trade or a curve change. Wire identity:
-/// <c>Monitor.Contracts.V1.BookExposuresUpdated</c>.
+/// A book's exposures after a trade or a curve change. Published inside a <see cref="BookExposuresBatch"/>, never
+/// alone.
 /// </summary>
 public sealed record BookExposuresUpdated
 {

@@ -32,8 +32,8 @@ public sealed class MonitorOptions
     public TimeSpan ConflationWindow { get; set; } = TimeSpan.FromMilliseconds(20);
 
     /// <summary>
-    /// Book figures (BookExposuresUpdated) are sent at most once per book per interval, the newest figures winning;
-    /// 0 sends them after every change. Limit and curve events are never held back. Default 1 s.
+    /// Book figures are sent at most once per book per interval, the newest figures winning, in BookExposuresBatch
+    /// messages; 0 sends each change's books at once. Limit and curve events are never held back. Default 1 s.
     /// </summary>
     public TimeSpan BookEventInterval { get; set; } = TimeSpan.FromSeconds(1);
 

@@ -16,18 +16,19 @@ namespace Monitor.Service.Pipeline;
 /// A publish that fails (the broker is down) is retried with a growing pause until it succeeds, and the outbox
 /// reports unhealthy meanwhile; the queue is bounded, so a long outage eventually holds the pipeline (and with it
 /// the acknowledgements of inbound messages) instead of growing without end.
-/// Book figures are conflated: within <see cref="MonitorOptions.BookEventInterval"/> only each book's newest
-/// <see cref="BookExposuresUpdated"/> is sent, so a refit of the government curve does not send every book's
-/// figures tens of times a second. They go out on a lane of their own, so limit and curve events (never conflated)
-/// do not queue behind a thousand books' figures.
+/// Book figures are conflated: within <see cref="MonitorOptions.BookEventInterval"/> only each book's newest figures
+/// are kept, and they leave together as <see cref="BookExposuresBatch"/> messages of at most
+/// <see cref="BookBatchSize"/> books, so a refit of the government curve does not send every book's figures tens of
+/// times a second, nor a thousand messages where a few do. They go out on a lane of their own, so limit and curve
+/// events (never conflated) do not queue behind them.
 /// </summary>
 public sealed partial class EventOutbox : BackgroundService
 {
     /// <summary>Changes (not messages) the queue holds before the pipeline waits: minutes of a busy day's changes.</summary>
     public const int Capacity = 10_000;
 
-    /// <summary>Book figures sent together on the book lane.</summary>
-    private const int BookChunk = 8;
+    /// <summary>Books per <see cref="BookExposuresBatch"/>: a few hundred kilobytes of JSON at most.</summary>
+    public const int BookBatchSize = 250;
 
     private static readonly TimeSpan FirstRetry = TimeSpan.FromMilliseconds(250);
     private static readonly TimeSpan LongestRetry = TimeSpan.FromSeconds(5);
@@ -90,7 +91,7 @@ public sealed partial class EventOutbox : BackgroundService
         }
         else if (books.Count > 0)
         {
-            events = [.. events, .. books.Select(b => b.ToMessage())];
+            events = [.. events, .. Batches(books)];
         }
         return events.Count == 0 ? ValueTask.CompletedTask : WriteAsync(events, cancellationToken);
     }
@@ -193,17 +194,24 @@ public sealed partial class EventOutbox : BackgroundService
                 due = _pendingBooks;
                 _pendingBooks = new Dictionary<string, BookFigures>(due.Count, StringComparer.Ordinal);
             }
-            // A few at a time: a thousand books sent at once would sit in the broker connection ahead of the next
-            // limit event (measured with `monitor load`: 0.3-0.8 s of added latency at each flush).
-            foreach (var chunk in due.Values.Chunk(BookChunk))
+            // One batch at a time: the next limit event waits behind at most one batch in the broker connection.
+            foreach (var batch in Batches(due.Values))
             {
-                await PublishAsync([.. chunk.Select(b => b.ToMessage())], cancellationToken).ConfigureAwait(false);
+                await PublishAsync([batch], cancellationToken).ConfigureAwait(false);
             }
         }
         finally
         {
             _bookLane.Release();
         }
+    }
+
+    /// <summary>The books' figures in book id order, <see cref="BookBatchSize"/> to a message.</summary>
+    private IEnumerable<BookExposuresBatch> Batches(IEnumerable<BookFigures> books)
+    {
+        var publishedAt = _time.GetUtcNow();
+        return books.OrderBy(b => b.Book, StringComparer.Ordinal).Chunk(BookBatchSize)
+            .Select(chunk => new BookExposuresBatch { Books = [.. chunk.Select(b => b.ToMessage())], PublishedAt = publishedAt });
     }
 
     /// <summary>Publishes one change's messages together, retrying those the broker did not confirm until all are through.</summary>

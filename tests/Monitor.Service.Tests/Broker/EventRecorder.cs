@@ -5,7 +5,7 @@ using Monitor.Contracts.V1;
 namespace Monitor.Service.Tests.Broker;
 
 /// <summary>Collects the service's outbound events as a downstream subscriber on the broker would see them.</summary>
-public sealed class EventRecorder : IConsumer<LimitStatusChanged>, IConsumer<CurveFitted>, IConsumer<BookExposuresUpdated>
+public sealed class EventRecorder : IConsumer<LimitStatusChanged>, IConsumer<CurveFitted>, IConsumer<BookExposuresBatch>
 {
     private readonly RecordedEvents _events;
 
@@ -23,9 +23,12 @@ public sealed class EventRecorder : IConsumer<LimitStatusChanged>, IConsumer<Cur
         return Task.CompletedTask;
     }
 
-    public Task Consume(ConsumeContext<BookExposuresUpdated> context)
+    public Task Consume(ConsumeContext<BookExposuresBatch> context)
     {
-        _events.BooksUpdated.Enqueue(context.Message);
+        foreach (var book in context.Message.Books)
+        {
+            _events.BooksUpdated.Enqueue(book);
+        }
         return Task.CompletedTask;
     }
 }
@@ -37,5 +40,6 @@ public sealed class RecordedEvents
 
     public ConcurrentQueue<CurveFitted> CurvesFitted { get; } = new();
 
+    /// <summary>The entries of every BookExposuresBatch, in arrival order.</summary>
     public ConcurrentQueue<BookExposuresUpdated> BooksUpdated { get; } = new();
 }

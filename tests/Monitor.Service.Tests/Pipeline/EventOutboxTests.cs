@@ -47,13 +47,53 @@ public sealed class EventOutboxTests
         Assert.All(recorder.Published, m => Assert.IsType<LimitStatusChanged>(m)); // the books wait for the interval
 
         time.Advance(TimeSpan.FromSeconds(1));
-        await ServiceUnderTest.WaitUntilAsync(() => recorder.Published.Count >= 4, "book figures published");
+        await ServiceUnderTest.WaitUntilAsync(() => recorder.Published.Count >= 3, "book figures published");
         await run.Outbox.WhenPublishedAsync(CancellationToken.None);
 
-        var books = recorder.Published.OfType<BookExposuresUpdated>().ToDictionary(b => b.Book, b => b.Measures["marketValue"]);
-        Assert.Equal(2, books.Count);
-        Assert.Equal(11, books["B1"]); // the newer of B1's two figures
-        Assert.Equal(20, books["B2"]);
+        var batch = Assert.Single(recorder.Published.OfType<BookExposuresBatch>()); // both books in one message
+        Assert.Equal(["B1", "B2"], batch.Books.Select(b => b.Book));
+        Assert.Equal(11, batch.Books[0].Measures["marketValue"]); // the newer of B1's two figures
+        Assert.Equal(20, batch.Books[1].Measures["marketValue"]);
+    }
+
+    [Fact]
+    public async Task ManyBooksGoOutInBatchesOfAtMostTheBatchSizeInBookOrderEachBookOnce()
+    {
+        var (bus, recorder) = RecordingBus.Create();
+        var time = new FakeTimeProvider(Now);
+        await using var run = await Running(bus, TimeSpan.FromSeconds(1), time);
+        var count = 2 * EventOutbox.BookBatchSize + 17;
+        // Queued in reverse order over two changes; the second change moves every book again.
+        var ids = Enumerable.Range(0, count).Select(i => $"B{i:D4}").Reverse().ToArray();
+        await run.Outbox.EnqueueAsync([], [.. ids.Select(id => Book(id, 1))], CancellationToken.None);
+        await run.Outbox.EnqueueAsync([], [.. ids.Select(id => Book(id, 2))], CancellationToken.None);
+
+        time.Advance(TimeSpan.FromSeconds(1));
+        await ServiceUnderTest.WaitUntilAsync(() => recorder.Published.Count >= 3, "book batches published");
+        await run.Outbox.WhenPublishedAsync(CancellationToken.None);
+
+        var batches = recorder.Published.Cast<BookExposuresBatch>().ToArray();
+        Assert.Equal([EventOutbox.BookBatchSize, EventOutbox.BookBatchSize, 17], batches.Select(b => b.Books.Count));
+        var sent = batches.SelectMany(b => b.Books).ToArray();
+        Assert.Equal(ids.Order(StringComparer.Ordinal), sent.Select(b => b.Book));
+        Assert.All(sent, b => Assert.Equal(2, b.Measures["marketValue"]));
+    }
+
+    [Fact]
+    public async Task WithoutAnIntervalEachChangesBooksFollowItsLimitEventsAsABatch()
+    {
+        var (bus, recorder) = RecordingBus.Create();
+        await using var run = await Running(bus, TimeSpan.Zero, new FakeTimeProvider(Now));
+
+        await run.Outbox.EnqueueAsync([Status(1)], [Book("B2", 20), Book("B1", 10)], CancellationToken.None);
+        await run.Outbox.EnqueueAsync([Status(2)], [Book("B1", 11)], CancellationToken.None);
+        await run.Outbox.WhenPublishedAsync(CancellationToken.None);
+
+        Assert.Equal([typeof(LimitStatusChanged), typeof(BookExposuresBatch), typeof(LimitStatusChanged), typeof(BookExposuresBatch)],
+            recorder.Published.Select(m => m.GetType()));
+        var batches = recorder.Published.OfType<BookExposuresBatch>().ToArray();
+        Assert.Equal(["B1", "B2"], batches[0].Books.Select(b => b.Book));
+        Assert.Equal(11, Assert.Single(batches[1].Books).Measures["marketValue"]);
     }
 
     [Fact]

@@ -12,7 +12,7 @@ using Monitor.Service.Tests.Support;
 namespace Monitor.Service.Tests.Pipeline;
 
 /// <summary>
-/// The service on MassTransit's test harness (in-memory transport): quotes -> CurveFitted -> BookExposuresUpdated ->
+/// The service on MassTransit's test harness (in-memory transport): quotes -> CurveFitted -> BookExposuresBatch ->
 /// LimitStatusChanged, conflation, hysteresis, the quality gate, plain JSON and bad messages. Status rule: warning at
 /// 80%, breach at 100%, 5% band (src/Monitor.Limits/README.md; common practice, no source).
 /// </summary>
@@ -32,7 +32,7 @@ public sealed class PipelineScenarioTests : IDisposable
         await ServiceUnderTest.WaitUntilAsync(() => service.Harness.Published.Select<CurveFitted>().Any(), "opening fit");
         Assert.True(await service.Harness.Published.Any<CurveFitted>(x => x.Context.Message.CurveId == CurveKeyLabel.Government && x.Context.Message.Version == 1));
         Assert.True(await service.Harness.Published.Any<CurveRejected>(x => x.Context.Message.CurveId == "UTIL-A"));
-        Assert.True(await service.Harness.Published.Any<BookExposuresUpdated>(x => x.Context.Message.Book == "RATES-CORE" && x.Context.Message.Measures["dv01"] > 0));
+        Assert.True(await service.Harness.Published.Any<BookExposuresBatch>(x => x.Context.Message.Books.Any(b => b.Book == "RATES-CORE" && b.Measures["dv01"] > 0)));
     }
 
     [Fact]
@@ -63,7 +63,7 @@ public sealed class PipelineScenarioTests : IDisposable
         await service.TradeAsync(ServiceUnderTest.Trade("R-1", 1, "new", "RATES-CURVE", "VGB-2051-11", -8_000_000));
 
         Assert.True(await service.Harness.Published.Any<CurveFitted>(x => x.Context.Message.CurveId == CurveKeyLabel.Government && x.Context.Message.Version == 3));
-        Assert.True(await service.Harness.Published.Any<BookExposuresUpdated>(x => x.Context.Message.Book == "RATES-CURVE" && x.Context.Message.CauseMessageType == nameof(BondQuoted)));
+        Assert.True(await service.Harness.Published.Any<BookExposuresBatch>(x => x.Context.Message.Books.Any(b => b.Book == "RATES-CURVE" && b.CauseMessageType == nameof(BondQuoted))));
         var changes = service.Harness.Published.Select<LimitStatusChanged>().Select(x => x.Context.Message).Where(m => m.LimitId == "t-curve-dv01").ToArray();
         // The unhedged book breaches at the opening fit; the hedge clears it; then the rallies and the sale.
         Assert.Equal(["breach", "within", "warning", "breach", "within"], changes.Select(c => c.Status));
@@ -129,7 +129,7 @@ public sealed class PipelineScenarioTests : IDisposable
         await using var service = await ServiceUnderTest.StartAsync();
         await ServiceUnderTest.WaitUntilAsync(() => service.Harness.Published.Select<CurveFitted>().Any(), "opening fit");
         var before = await service.StateAsync();
-        var booksBefore = service.Harness.Published.Select<BookExposuresUpdated>().Count();
+        var booksBefore = service.Harness.Published.Select<BookExposuresBatch>().Sum(x => x.Context.Message.Books.Count);
         var time = TestMarket.Now.AddMinutes(-5);
         var corrupted = Government(TestMarket.OpenQuotes()).Select((q, i) =>
             new BondQuote(q.InstrumentId, time, null, null, q.CleanMid!.Value - (i % 2 == 0 ? 8 : 0), null, "bad-feed"));
@@ -139,7 +139,7 @@ public sealed class PipelineScenarioTests : IDisposable
             x.Context.Message.CurveId == CurveKeyLabel.Government && x.Context.Message.KeptCurveVersion == 1 && x.Context.Message.Reasons.Count > 0));
         var curve = await service.Pipeline.ReadAsync(e => (e.Curves[""].Version, e.Curves[""].LastFitRejected));
         Assert.Equal((1, true), curve);
-        Assert.Equal(booksBefore, service.Harness.Published.Select<BookExposuresUpdated>().Count());
+        Assert.Equal(booksBefore, service.Harness.Published.Select<BookExposuresBatch>().Sum(x => x.Context.Message.Books.Count));
         Assert.Equal(before.Books, (await service.StateAsync()).Books);
     }
 
@@ -155,7 +155,7 @@ public sealed class PipelineScenarioTests : IDisposable
 
         Assert.True(await service.Harness.Consumed.Any<ParYieldsPublished>());
         await ServiceUnderTest.WaitUntilAsync(() => service.Harness.Published.Select<CurveFitted>().Any(x => x.Context.Message.Version == 2 && x.Context.Message.CurveId == CurveKeyLabel.Government), "par-yield fit");
-        Assert.True(await service.Harness.Published.Any<BookExposuresUpdated>(x => x.Context.Message.CauseMessageType == nameof(ParYieldsPublished)));
+        Assert.True(await service.Harness.Published.Any<BookExposuresBatch>(x => x.Context.Message.Books.Any(b => b.CauseMessageType == nameof(ParYieldsPublished))));
     }
 
     [Fact]
