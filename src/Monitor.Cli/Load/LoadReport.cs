@@ -28,7 +28,7 @@ internal static class LoadReport
         foreach (var r in results)
         {
             output.WriteLine();
-            output.WriteLine(string.Create(c, $"== {r.Mode}: paced {r.PacedQuotes} quotes in {r.PacedSeconds:F1} s ({r.AchievedRate:F0}/s), trades {r.TradesSent}; events: curve {r.CurveEvents}, status {r.StatusEvents}, books {r.BookEvents}"));
+            output.WriteLine(string.Create(c, $"== {r.Mode}: paced {r.PacedQuotes} quotes in {r.PacedSeconds:F1} s ({r.AchievedRate:F0}/s), trades {r.TradesSent}; events: curve {r.CurveEvents}, status {r.StatusEvents}, books {r.BookEvents}; process CPU {r.CpuCores:F2} cores"));
             output.WriteLine(string.Create(c, $"{"latency (ms)",-40} {"count",8} {"p50",8} {"p90",8} {"p99",8} {"p99.9",8} {"max",8}"));
             foreach (var l in r.Latencies)
             {

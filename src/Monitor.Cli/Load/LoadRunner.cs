@@ -175,6 +175,7 @@ internal static class LoadRunner
         var baseline = counter.Count;
         var clock = Stopwatch.StartNew();
         TimeSpan measuredFrom = default;
+        TimeSpan cpuFrom = default;
         for (long i = 0; i < total; i++)
         {
             var delay = pacer.DelayBefore(i, clock.Elapsed);
@@ -185,6 +186,7 @@ internal static class LoadRunner
             if (i == warmup)
             {
                 measuredFrom = clock.Elapsed;
+                cpuFrom = Process.GetCurrentProcess().TotalProcessorTime;
                 stages?.Measuring = true;
             }
             var quote = stream.Next(i, DateTimeOffset.UtcNow);
@@ -210,6 +212,7 @@ internal static class LoadRunner
         }
         await Task.WhenAll(inFlight).ConfigureAwait(false);
         var seconds = (clock.Elapsed - measuredFrom).TotalSeconds;
+        var cpuCores = (Process.GetCurrentProcess().TotalProcessorTime - cpuFrom).TotalSeconds / seconds;
         // Every paced quote consumed (at most 3 minutes: a service that falls behind shows it in the latencies), then the events.
         await WaitForAsync(() => counter.Count - baseline >= total, TimeSpan.FromMinutes(3), cancellationToken).ConfigureAwait(false);
         await DrainAsync(() => tracker.CurveEvents + tracker.StatusEvents + tracker.BookEvents + counter.Count, TimeSpan.FromSeconds(2), TimeSpan.FromSeconds(30), cancellationToken).ConfigureAwait(false);
@@ -223,7 +226,7 @@ internal static class LoadRunner
         {
             latencies = [.. latencies, .. stages.Summaries()];
         }
-        return new PhaseResult(mode, measured, seconds, measured / seconds, latencies, tracker.CurveEvents, tracker.StatusEvents, tracker.BookEvents, tradesSent, 0, 0, 0, 0, 0, 0);
+        return new PhaseResult(mode, measured, seconds, measured / seconds, latencies, tracker.CurveEvents, tracker.StatusEvents, tracker.BookEvents, tradesSent, 0, 0, 0, 0, 0, 0, cpuCores);
     }
 
     private readonly record struct Throughput(long Sent, double PublishRate, long Consumed, double ConsumeRate, double Seconds);
