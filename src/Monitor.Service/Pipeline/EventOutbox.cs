@@ -1,3 +1,4 @@
+using System.Diagnostics;
 using System.Threading.Channels;
 using MassTransit;
 using Microsoft.Extensions.Hosting;
@@ -129,7 +130,7 @@ public sealed partial class EventOutbox : BackgroundService
             {
                 await PublishAsync(change.Events, stoppingToken).ConfigureAwait(false);
                 Interlocked.Decrement(ref _backlog);
-                _metrics.EventDelay.Record(_time.GetElapsedTime(change.QueuedAt).TotalMilliseconds);
+                _metrics.EventDelay.Record(Stopwatch.GetElapsedTime(change.QueuedAt).TotalMilliseconds);
             }
         }
         catch (OperationCanceledException) when (stoppingToken.IsCancellationRequested)
@@ -142,7 +143,7 @@ public sealed partial class EventOutbox : BackgroundService
     private ValueTask WriteAsync(IReadOnlyList<object> events, CancellationToken cancellationToken)
     {
         Interlocked.Increment(ref _backlog);
-        var change = new QueuedChange(events, _time.GetTimestamp());
+        var change = new QueuedChange(events, Stopwatch.GetTimestamp());
         if (_queue.Writer.TryWrite(change))
         {
             return ValueTask.CompletedTask;
@@ -287,7 +288,7 @@ public sealed partial class EventOutbox : BackgroundService
         }
     }
 
-    /// <summary>One change's events and when they were handed over (<see cref="TimeProvider.GetTimestamp"/>).</summary>
+    /// <summary>One change's events and when they were handed over (<see cref="Stopwatch.GetTimestamp"/>: durations are real time, whatever the clock).</summary>
     private readonly record struct QueuedChange(IReadOnlyList<object> Events, long QueuedAt);
 
     [LoggerMessage(Level = LogLevel.Error, Message = "Publishing events failed ({Count} waiting): {Reason}; retrying until the broker confirms them")]

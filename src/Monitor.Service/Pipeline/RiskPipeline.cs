@@ -1,3 +1,4 @@
+using System.Diagnostics;
 using System.Globalization;
 using System.Threading.Channels;
 using Microsoft.Extensions.Logging;
@@ -126,15 +127,15 @@ public sealed partial class RiskPipeline
             }
             var cause = dirty.Select(k => _pendingCause.GetValueOrDefault(k)).OfType<Cause>().MaxBy(c => c.EventTime)
                 ?? Cause.Internal("refit", now);
-            var started = _time.GetTimestamp();
+            var started = Stopwatch.GetTimestamp();
             var result = _engine.RefitDirtyCurves(now);
-            _metrics.FitDuration.Record(_time.GetElapsedTime(started).TotalMilliseconds - result.ExposureMilliseconds);
+            _metrics.FitDuration.Record(Stopwatch.GetElapsedTime(started).TotalMilliseconds - result.ExposureMilliseconds);
             foreach (var key in dirty)
             {
                 _pendingCause.Remove(key);
             }
             await CommitAsync(result, cause, now, cancellationToken).ConfigureAwait(false);
-            _metrics.RefitDuration.Record(_time.GetElapsedTime(started).TotalMilliseconds);
+            _metrics.RefitDuration.Record(Stopwatch.GetElapsedTime(started).TotalMilliseconds);
         }
         finally
         {
@@ -162,9 +163,9 @@ public sealed partial class RiskPipeline
         try
         {
             var now = _time.GetUtcNow();
-            var started = _time.GetTimestamp();
+            var started = Stopwatch.GetTimestamp();
             var result = _engine.ApplyParYields(curveId, asOf, points, now);
-            _metrics.FitDuration.Record(_time.GetElapsedTime(started).TotalMilliseconds - result.ExposureMilliseconds);
+            _metrics.FitDuration.Record(Stopwatch.GetElapsedTime(started).TotalMilliseconds - result.ExposureMilliseconds);
             await CommitAsync(result, cause, now, cancellationToken).ConfigureAwait(false);
         }
         finally
@@ -338,9 +339,9 @@ public sealed partial class RiskPipeline
     {
         if (batch.Count > 0)
         {
-            var started = _time.GetTimestamp();
+            var started = Stopwatch.GetTimestamp();
             await _storage.RunAsync(StorageFaultGate.ExposureLog, () => _log.Append(batch), cancellationToken).ConfigureAwait(false);
-            _metrics.LogWriteDuration.Record(_time.GetElapsedTime(started).TotalMilliseconds);
+            _metrics.LogWriteDuration.Record(Stopwatch.GetElapsedTime(started).TotalMilliseconds);
         }
     }
 

@@ -172,6 +172,37 @@ public sealed class PipelineScenarioTests : IDisposable
     }
 
     [Fact]
+    public async Task A_refit_measures_each_stage_of_its_path()
+    {
+        await using var service = await ServiceUnderTest.StartAsync();
+        await ServiceUnderTest.WaitUntilAsync(() => service.Harness.Published.Select<CurveFitted>().Any(), "opening fit");
+        var factory = service.Services.GetRequiredService<System.Diagnostics.Metrics.IMeterFactory>();
+        string[] stages = ["monitor.refit.duration", "monitor.exposure.duration", "monitor.exposure_log.write.duration", "monitor.events.delay"];
+        var measured = new System.Collections.Concurrent.ConcurrentDictionary<string, System.Collections.Concurrent.ConcurrentBag<double>>();
+        using var listener = new System.Diagnostics.Metrics.MeterListener
+        {
+            InstrumentPublished = (instrument, l) =>
+            {
+                if (ReferenceEquals(instrument.Meter.Scope, factory) && stages.Contains(instrument.Name))
+                {
+                    l.EnableMeasurementEvents(instrument);
+                }
+            },
+        };
+        listener.SetMeasurementEventCallback<double>((instrument, value, _, _) => measured.GetOrAdd(instrument.Name, _ => []).Add(value));
+        listener.Start();
+
+        await service.QuoteAsync(Government(TestMarket.Between(-1, TestMarket.Now.AddMinutes(-5))));
+        await ServiceUnderTest.WaitUntilAsync(() => service.Harness.Published.Select<CurveFitted>().Any(x => x.Context.Message.Version == 2), "refit");
+        await service.Pipeline.WhenPublishedAsync();
+
+        Assert.All(stages, stage => Assert.True(measured.TryGetValue(stage, out var values) && values.All(v => double.IsFinite(v) && v >= 0), stage));
+        // The refit holds the lock through the books and the log write: no refit took less than either of its parts.
+        Assert.True(measured["monitor.refit.duration"].Max() >= measured["monitor.exposure_log.write.duration"].Min());
+        Assert.True(measured["monitor.refit.duration"].Max() >= measured["monitor.exposure.duration"].Min());
+    }
+
+    [Fact]
     public async Task A_trade_for_an_unknown_book_faults_with_the_field_named_and_changes_nothing()
     {
         await using var service = await ServiceUnderTest.StartAsync();
