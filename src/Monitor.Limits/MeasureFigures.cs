@@ -23,6 +23,20 @@ public sealed class MeasureFigures : IReadOnlyDictionary<ExposureMeasure, double
         }
     }
 
+    /// <param name="values">One value per measure, in enum order (index = (int)measure); copied.</param>
+    /// <exception cref="ArgumentException">Not exactly one value per measure.</exception>
+    public MeasureFigures(ReadOnlySpan<double> values)
+    {
+        if (values.Length != AllMeasures.Length)
+        {
+            throw new ArgumentException($"Expected {AllMeasures.Length} values, one per exposure measure in enum order, got {values.Length}.", nameof(values));
+        }
+        values.CopyTo(_values);
+    }
+
+    /// <summary>Number of measures: the length of the span the span constructor takes.</summary>
+    public static int MeasureCount => AllMeasures.Length;
+
     public double this[ExposureMeasure key] => ContainsKey(key) ? _values[(int)key] : throw new KeyNotFoundException($"{key} is not an exposure measure.");
 
     public IEnumerable<ExposureMeasure> Keys => AllMeasures;
@@ -53,4 +67,24 @@ public sealed class MeasureFigures : IReadOnlyDictionary<ExposureMeasure, double
     }
 
     IEnumerator IEnumerable.GetEnumerator() => GetEnumerator();
+
+    /// <summary>The value of <paramref name="measure"/>, 0 for a value outside the enum (as a missing key reads in <see cref="BookExposures.Get"/>).</summary>
+    internal double ValueOrZero(ExposureMeasure measure) => (uint)measure < (uint)_values.Length ? _values[(int)measure] : 0.0;
+
+    /// <summary>The first non-finite value in enum order (the order the enumerator gives), without an enumerator.</summary>
+    internal bool TryFindNonFinite(out ExposureMeasure measure, out double value)
+    {
+        for (var i = 0; i < _values.Length; i++)
+        {
+            if (!double.IsFinite(_values[i]))
+            {
+                measure = (ExposureMeasure)i;
+                value = _values[i];
+                return true;
+            }
+        }
+        measure = default;
+        value = 0;
+        return false;
+    }
 }

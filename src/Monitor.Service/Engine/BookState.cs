@@ -29,11 +29,32 @@ public sealed class BookState
     public IReadOnlyList<string> CurveKeys =>
         _holdings.Where(h => h.Value.Count > 0).Select(h => h.Key).Order(StringComparer.Ordinal).ToArray();
 
+    private BookMoments? _moments;
+    private BookRisk? _risk;
+
     public BookExposures? Exposures { get; set; }
 
-    public BookRisk? Risk { get; set; }
+    /// <summary>The last revaluation's exposures, built from its moment rows on first read (then the same object).</summary>
+    public BookRisk? Risk
+    {
+        get => _risk ?? _moments?.Risk;
+        set
+        {
+            _risk = value;
+            _moments = null;
+        }
+    }
 
     public DateTimeOffset? UpdatedAt { get; set; }
+
+    /// <summary>A revaluation's figures: the moments behind <see cref="Risk"/> and the limit measures.</summary>
+    internal void SetFigures(BookMoments moments, BookExposures exposures, DateTimeOffset now)
+    {
+        _moments = moments;
+        _risk = null;
+        Exposures = exposures;
+        UpdatedAt = now;
+    }
 
     /// <summary>Whether the book holds anything under a curve key that <paramref name="matches"/> (no allocation: once per book per change).</summary>
     internal bool HoldsAny(Func<string, bool> matches)
