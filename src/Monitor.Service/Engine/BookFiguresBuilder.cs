@@ -6,7 +6,8 @@ namespace Monitor.Service.Engine;
 /// <summary>
 /// Turns one revaluation's per-key book matrices into each book's figures: its moment rows (<see cref="BookMoments"/>,
 /// the <see cref="BookRisk"/> on demand) and its limit measures (<see cref="BookExposures"/>), read straight from the
-/// rows into arrays: no dictionary per book, no <see cref="FactorExposures"/> objects, no closure per measure.
+/// rows: no dictionary per book, no <see cref="FactorExposures"/> objects, no closure per measure; the rows are
+/// copied into blocks the books share.
 /// </summary>
 /// <remarks>
 /// Exactly the figures of <see cref="ExposureMapping.ToBookExposures"/> on the <see cref="BookRisk"/> the rows make: the
@@ -16,18 +17,26 @@ namespace Monitor.Service.Engine;
 /// </remarks>
 internal sealed class BookFiguresBuilder
 {
+    /// <summary>8,192 doubles, 64 KB: a shared block of moment rows stays below the 85,000-byte large-object threshold.</summary>
+    private const int BlockDoubles = 8_192;
+
     private readonly int _baseFactorCount;
     private readonly List<string> _keys;
     private readonly BookRiskMatrix[] _matrices;
     private readonly Dictionary<ulong, BookKeySet> _keySets = [];
     private readonly double[] _first;
     private readonly double[] _measures = new double[MeasureFigures.MeasureCount];
+    private int _booksLeft;
+    private double[] _block = [];
+    private int _used;
 
     /// <param name="baseFactorCount">Base curve factors.</param>
     /// <param name="keys">The revaluation's curve keys in ordinal order (one per pass).</param>
     /// <param name="matrices">Each key's book matrix (full depth).</param>
-    public BookFiguresBuilder(int baseFactorCount, List<string> keys, BookRiskMatrix[] matrices)
+    /// <param name="books">How many books <see cref="Build"/> will be called for (sizes the shared blocks).</param>
+    public BookFiguresBuilder(int baseFactorCount, List<string> keys, BookRiskMatrix[] matrices, int books)
     {
+        _booksLeft = books;
         _baseFactorCount = baseFactorCount;
         _keys = keys;
         _matrices = matrices;
@@ -43,7 +52,7 @@ internal sealed class BookFiguresBuilder
     public (BookMoments Moments, BookExposures Exposures) Build(ReadOnlySpan<int> rowOf)
     {
         var keySet = KeySet(rowOf);
-        var data = keySet.TotalWidth == 0 ? [] : new double[keySet.TotalWidth];
+        var (data, offset) = Reserve(keySet.TotalWidth);
         var value = 0.0;
         var level = 0.0;
         var first = _first.AsSpan(0, _baseFactorCount + keySet.MaxSpreadFactorCount);
@@ -56,7 +65,7 @@ internal sealed class BookFiguresBuilder
                 continue;
             }
             var row = _matrices[k].Moments(rowOf[k]);
-            row.CopyTo(data.AsSpan(keySet.Offset(q++)));
+            row.CopyTo(data.AsSpan(offset + keySet.Offset(q++)));
             var spread = _matrices[k].SpreadFactorCount;
             var n = _baseFactorCount + spread;
             value += row[0];
@@ -74,7 +83,24 @@ internal sealed class BookFiguresBuilder
         }
         ExposureMapping.MeasuresFromMoments(_baseFactorCount, keySet.MaxSpreadFactorCount, value, first, level, _measures);
         var exposures = new BookExposures { Totals = new MeasureFigures(_measures), BySpreadGroup = bySpreadGroup ?? ExposureMapping.NoSpreadGroups };
-        return (new BookMoments(keySet, data), exposures);
+        return (new BookMoments(keySet, data, offset), exposures);
+    }
+
+    /// <summary>
+    /// Room for one book's rows in the current block, or a new block sized for the books still to come at this width, at
+    /// most <see cref="BlockDoubles"/> (below the large-object threshold) unless one book needs more.
+    /// </summary>
+    private (double[] Block, int Offset) Reserve(int width)
+    {
+        _booksLeft--;
+        if (_used + width > _block.Length)
+        {
+            _block = new double[Math.Max(width, (int)Math.Min(BlockDoubles, (long)width * (_booksLeft + 1)))];
+            _used = 0;
+        }
+        var offset = _used;
+        _used += width;
+        return (_block, offset);
     }
 
     // Books holding the same keys share one key set (a bit per key; past 64 keys each book gets its own).

@@ -29,30 +29,30 @@ public sealed class BookState
     public IReadOnlyList<string> CurveKeys =>
         _holdings.Where(h => h.Value.Count > 0).Select(h => h.Key).Order(StringComparer.Ordinal).ToArray();
 
-    private BookMoments? _moments;
+    private BookUpdate? _last;
     private BookRisk? _risk;
 
     public BookExposures? Exposures { get; set; }
 
-    /// <summary>The last revaluation's exposures, built from its moment rows on first read (then the same object).</summary>
+    /// <summary>The last revaluation's exposures, built from its moment rows on first read (then the same object, the update's).</summary>
     public BookRisk? Risk
     {
-        get => _risk ?? _moments?.Risk;
+        get => _risk ?? _last?.Risk;
         set
         {
             _risk = value;
-            _moments = null;
+            _last = null;
         }
     }
 
     public DateTimeOffset? UpdatedAt { get; set; }
 
-    /// <summary>A revaluation's figures: the moments behind <see cref="Risk"/> and the limit measures.</summary>
-    internal void SetFigures(BookMoments moments, BookExposures exposures, DateTimeOffset now)
+    /// <summary>A revaluation's figures: the update carries the measures and the moments behind <see cref="Risk"/>.</summary>
+    internal void SetFigures(BookUpdate update, DateTimeOffset now)
     {
-        _moments = moments;
+        _last = update;
         _risk = null;
-        Exposures = exposures;
+        Exposures = update.Exposures;
         UpdatedAt = now;
     }
 

@@ -6,12 +6,13 @@ namespace Monitor.Service.Engine;
 /// <summary>A book's recomputed figures: the limit measures and the full factor exposures behind them.</summary>
 /// <remarks>
 /// The engine hands <see cref="Risk"/> over as the revaluation's moment rows (<see cref="BookMoments"/>) and builds the
-/// <see cref="BookRisk"/> objects only when read: a refit of a thousand books reads the measures, rarely the factors.
+/// <see cref="BookRisk"/> only when it is read, once: a refit of a thousand books is read for its measures, rarely for
+/// its factors.
 /// </remarks>
 public sealed record BookUpdate
 {
-    private readonly BookMoments? _moments;
-    private readonly BookRisk? _risk;
+    private readonly BookMoments _moments;
+    private BookRisk? _risk;
 
     public BookUpdate(string book, BookExposures exposures, BookRisk risk)
     {
@@ -33,13 +34,20 @@ public sealed record BookUpdate
 
     public BookRisk Risk
     {
-        get => _risk ?? _moments?.Risk!;
+        get => _risk ??= _moments.BuildRisk();
         init
         {
             _risk = value;
-            _moments = null;
+            _moments = default;
         }
     }
+
+    // As the positional record compared: book, figures and exposures (not the lazily filled cache behind Risk).
+    public bool Equals(BookUpdate? other) =>
+        other is not null && (ReferenceEquals(this, other)
+            || (Book == other.Book && EqualityComparer<BookExposures>.Default.Equals(Exposures, other.Exposures) && EqualityComparer<BookRisk>.Default.Equals(Risk, other.Risk)));
+
+    public override int GetHashCode() => HashCode.Combine(Book, Exposures, Risk);
 
     public void Deconstruct(out string book, out BookExposures exposures, out BookRisk risk)
     {

@@ -455,15 +455,16 @@ public sealed class RiskEngine
                 rowOf[holders[j] * passes.Count + k] = j;
             }
         }
-        var figures = new BookFiguresBuilder(government.FactorCount, passes.ConvertAll(p => p.Key), matrices);
+        var figures = new BookFiguresBuilder(government.FactorCount, passes.ConvertAll(p => p.Key), matrices, priced.Count);
         var limitUpdates = new (string BookId, BookExposures Exposures)[priced.Count];
         result.Books.EnsureCapacity(result.Books.Count + priced.Count);
         for (var i = 0; i < priced.Count; i++)
         {
             var book = priced[i];
             var (moments, exposures) = figures.Build(rowOf.AsSpan(i * passes.Count, passes.Count));
-            book.SetFigures(moments, exposures, now);
-            result.Books.Add(new BookUpdate(book.Id, exposures, moments));
+            var update = new BookUpdate(book.Id, exposures, moments);
+            book.SetFigures(update, now);
+            result.Books.Add(update);
             limitUpdates[i] = (book.Id, exposures);
         }
         // All books first, then each desk and the firm once on the new figures (not once per book).

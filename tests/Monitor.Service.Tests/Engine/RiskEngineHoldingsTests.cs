@@ -201,6 +201,33 @@ public sealed class RiskEngineHoldingsTests : IDisposable
     }
 
     [Fact]
+    public void A_thousand_books_sharing_blocks_of_moment_rows_each_read_their_own_rows()
+    {
+        // Past the 8,192 doubles of one block: 1,000 books of 10 (government) or 38 (with a spread group) doubles each.
+        string[] books = [.. Enumerable.Range(0, 1_000).Select(b => $"M{b:D4}")];
+        var engine = OpenedEngine(books);
+        var tradable = Tradable(engine);
+        var random = new Random(8);
+        foreach (var book in books)
+        {
+            engine.LoadPosition(book, tradable[random.Next(tradable.Length)], Face(random));
+            engine.LoadPosition(book, tradable[random.Next(tradable.Length)], Face(random));
+        }
+
+        var result = engine.RevalueAll(TestMarket.Now);
+
+        Assert.Equal(books.Length, result.Books.Count);
+        foreach (var update in result.Books)
+        {
+            var expected = ExposureMapping.ToBookExposures(update.Risk);
+            AssertSameBits(expected.Totals, update.Exposures.Totals, update.Book);
+            Assert.Equal(engine.Books[update.Book].CurveKeys, update.Risk.ByCurveKey.Keys.Order(StringComparer.Ordinal));
+        }
+        Assert.Contains(result.Books, u => u.Exposures.BySpreadGroup.Count > 0);
+        Assert.Contains(result.Books, u => u.Exposures.BySpreadGroup.Count == 0);
+    }
+
+    [Fact]
     public void An_update_keeps_its_own_factor_exposures_after_its_book_is_revalued_again()
     {
         var engine = OpenedEngine();
@@ -245,7 +272,7 @@ public sealed class RiskEngineHoldingsTests : IDisposable
         }
     }
 
-    private RiskEngine OpenedEngine()
+    private RiskEngine OpenedEngine(string[]? books = null)
     {
         var limits = _folder.Combine("limits.json");
         File.WriteAllText(limits, $$"""
@@ -253,7 +280,7 @@ public sealed class RiskEngineHoldingsTests : IDisposable
               "schemaVersion": 1,
               "firm": "test-firm",
               "defaults": { "warning": 0.8, "hysteresis": 0.05 },
-              "desks": [ { "id": "mixed", "books": [{{string.Join(", ", BookIds.Select(b => $"\"{b}\""))}}] } ],
+              "desks": [ { "id": "mixed", "books": [{{string.Join(", ", (books ?? BookIds).Select(b => $"\"{b}\""))}}] } ],
               "limits": [ { "id": "firm-value", "scope": "firm", "measure": "marketValue", "lower": -1000000000000, "upper": 1000000000000 } ]
             }
             """);
