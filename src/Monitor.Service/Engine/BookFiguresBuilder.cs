@@ -43,6 +43,10 @@ internal sealed class BookFiguresBuilder
         var spread = 0;
         foreach (var matrix in matrices)
         {
+            if (matrix.BaseFactorCount != baseFactorCount || matrix.Depth != RiskDepth.Full)
+            {
+                throw new InvalidOperationException($"Book matrices must be full depth on the {baseFactorCount} base factors of the government curve.");
+            }
             spread = Math.Max(spread, matrix.SpreadFactorCount);
         }
         _first = new double[baseFactorCount + spread];
