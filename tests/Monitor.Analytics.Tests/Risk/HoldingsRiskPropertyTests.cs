@@ -172,6 +172,27 @@ public class HoldingsRiskPropertyTests
     }
 
     [Fact]
+    public void Rows_of_a_large_table_split_over_threads_equal_the_one_thread_rows_and_a_government_grid_built_inline()
+    {
+        // 400 instruments: past one chunk of 64, so the default build splits them; the grid has the two spread keys too.
+        var w = MakeWorld(12);
+        var rng = new Random(12);
+        for (var i = 0; i < 400; i++)
+        {
+            w.Table.Register(Keys[rng.Next(Keys.Length)], RiskTestData.RandomBond(rng));
+        }
+        var grid = CurveGrid.Build(w.Dates, RiskTestData.ValuationDate, w.BaseCurve, w.Spreads);
+
+        var split = InstrumentRiskRows.Build(w.Table, grid, RiskDepth.Full);
+        var serial = InstrumentRiskRows.Build(w.Table, grid, RiskDepth.Full, maxDegreeOfParallelism: 1);
+
+        Assert.True(split.Data.SequenceEqual(serial.Data));
+        // A government-only grid (one key, filled on the calling thread) equals the government rows of the grid with spreads.
+        var government = CurveGrid.Build(w.Dates, RiskTestData.ValuationDate, w.BaseCurve, null);
+        Assert.True(government.RowsFor(CurveKey.Government).Data.SequenceEqual(grid.RowsFor(CurveKey.Government).Data));
+    }
+
+    [Fact]
     public void A_matrix_is_reused_and_a_durations_pass_refuses_convexities()
     {
         var w = MakeWorld(7);
