@@ -1,3 +1,5 @@
+using System.Collections.ObjectModel;
+
 namespace Monitor.Limits;
 
 /// <summary>
@@ -10,8 +12,9 @@ public sealed record BookExposures
     public required IReadOnlyDictionary<ExposureMeasure, double> Totals { get; init; }
 
     /// <summary>Spread group -&gt; the book's figures on the bonds of that group only.</summary>
+    /// <remarks>Empty by default: one shared read-only instance, not a dictionary per record (a refit makes a thousand).</remarks>
     public IReadOnlyDictionary<string, IReadOnlyDictionary<ExposureMeasure, double>> BySpreadGroup { get; init; } =
-        new Dictionary<string, IReadOnlyDictionary<ExposureMeasure, double>>();
+        ReadOnlyDictionary<string, IReadOnlyDictionary<ExposureMeasure, double>>.Empty;
 
     /// <summary>Totals only, no spread-group breakdown.</summary>
     public static BookExposures FromTotals(IReadOnlyDictionary<ExposureMeasure, double> totals) => new() { Totals = totals };

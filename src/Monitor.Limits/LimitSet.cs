@@ -19,7 +19,11 @@ public sealed class LimitSet
     private readonly Dictionary<string, LimitDefinition> _limits = new(StringComparer.Ordinal);
     private readonly Dictionary<LimitScope, List<LimitDefinition>> _limitsByScope = [];
     private readonly Dictionary<string, LimitStatus> _statuses = new(StringComparer.Ordinal);
-    private readonly Dictionary<string, BookExposures> _bookExposures = new(StringComparer.Ordinal);
+    // Books with figures, in the order they were first reported (the order Reload lists dropped books in).
+    private readonly Dictionary<string, BookSlot> _reported = new(StringComparer.Ordinal);
+    private readonly List<BookSlot> _batch = [];
+    private ScopeIndex _index;
+    private long _batchMark;
 
     /// <exception cref="LimitConfigurationException">Any invalid definition, duplicate id or unknown scope; lists them all.</exception>
     public LimitSet(BookHierarchy hierarchy, IEnumerable<LimitDefinition> limits)
@@ -29,6 +33,7 @@ public sealed class LimitSet
         var list = limits.ToList();
         ThrowIfInvalid(hierarchy, list);
         Hierarchy = hierarchy;
+        _index = new ScopeIndex(hierarchy);
         Install(list);
         foreach (var limit in list)
         {
@@ -47,25 +52,14 @@ public sealed class LimitSet
 
     /// <summary>The book's last reported total exposures; empty when none were reported yet.</summary>
     public IReadOnlyDictionary<ExposureMeasure, double> ExposuresOf(string bookId) =>
-        _bookExposures.TryGetValue(bookId, out var e) ? e.Totals : new Dictionary<ExposureMeasure, double>();
+        _reported.TryGetValue(bookId, out var slot) ? slot.Exposures!.Totals : new Dictionary<ExposureMeasure, double>();
 
     /// <summary>
     /// The scope's exposure: the sum over its books of the measure, over all positions or, with
     /// <paramref name="spreadGroup"/>, over the bonds of that spread group (a missing figure counts 0).
     /// </summary>
-    public double ExposureOf(LimitScope scope, ExposureMeasure measure, string? spreadGroup = null)
-    {
-        var sum = 0.0;
-        foreach (var book in Hierarchy.BooksUnder(scope))
-        {
-            if (_bookExposures.TryGetValue(book, out var figures))
-            {
-                sum += figures.Get(measure, spreadGroup);
-            }
-        }
-
-        return sum;
-    }
+    public double ExposureOf(LimitScope scope, ExposureMeasure measure, string? spreadGroup = null) =>
+        Sum(_index.Of(scope).Books, measure, spreadGroup);
 
     /// <summary>
     /// Replaces one book's exposures (a measure missing from <paramref name="exposures"/> counts 0) and
@@ -81,7 +75,7 @@ public sealed class LimitSet
     public IReadOnlyList<LimitStatusChange> UpdateBook(string bookId, BookExposures exposures, DateTimeOffset asOf)
     {
         var scopes = CheckBookUpdate(bookId, exposures);
-        _bookExposures[bookId] = exposures.Snapshot();
+        SetExposures(_index.Book(bookId)!, exposures.Snapshot());
         return EvaluateScopes(scopes, asOf, commit: true);
     }
 
@@ -97,27 +91,48 @@ public sealed class LimitSet
     public IReadOnlyList<LimitStatusChange> UpdateBooks(IReadOnlyList<(string BookId, BookExposures Exposures)> updates, DateTimeOffset asOf)
     {
         ArgumentNullException.ThrowIfNull(updates);
-        var scopes = new List<LimitScope>();
-        var seen = new HashSet<LimitScope>();
-        foreach (var (bookId, exposures) in updates)
+        // Per book: its slot (own scope, desk scope) instead of a scope list; every book checked before any changes.
+        var slots = _batch;
+        slots.Clear();
+        for (var i = 0; i < updates.Count; i++)
         {
-            foreach (var scope in CheckBookUpdate(bookId, exposures))
+            var (bookId, exposures) = updates[i];
+            slots.Add(CheckBook(bookId, exposures));
+        }
+
+        for (var i = 0; i < slots.Count; i++)
+        {
+            SetExposures(slots[i], updates[i].Exposures.Snapshot());
+        }
+
+        // Each scope once: book scopes first (in the order given), then desks (in the order first touched), then the firm.
+        var mark = ++_batchMark;
+        var changes = new List<LimitStatusChange>();
+        foreach (var slot in slots)
+        {
+            if (slot.Own.Mark != mark)
             {
-                if (seen.Add(scope))
-                {
-                    scopes.Add(scope);
-                }
+                slot.Own.Mark = mark;
+                Evaluate(slot.Own, asOf, commit: true, changes);
             }
         }
 
-        foreach (var (bookId, exposures) in updates)
+        foreach (var slot in slots)
         {
-            _bookExposures[bookId] = exposures.Snapshot();
+            if (slot.Desk.Mark != mark)
+            {
+                slot.Desk.Mark = mark;
+                Evaluate(slot.Desk, asOf, commit: true, changes);
+            }
         }
 
-        // Book scopes first (in the order given), then desks, then the firm: the order UpdateBook reports in (OrderBy is stable).
-        var ordered = scopes.OrderBy(s => s.Level switch { LimitScopeLevel.Book => 0, LimitScopeLevel.Desk => 1, _ => 2 }).ToList();
-        return EvaluateScopes(ordered, asOf, commit: true);
+        if (slots.Count > 0)
+        {
+            Evaluate(_index.Firm, asOf, commit: true, changes);
+        }
+
+        slots.Clear();
+        return changes;
     }
 
     /// <summary>
@@ -131,21 +146,23 @@ public sealed class LimitSet
     public IReadOnlyList<LimitStatusChange> WhatIf(string bookId, BookExposures exposures, DateTimeOffset asOf)
     {
         var scopes = CheckBookUpdate(bookId, exposures);
-        var had = _bookExposures.TryGetValue(bookId, out var before);
-        _bookExposures[bookId] = exposures.Snapshot();
+        var slot = _index.Book(bookId)!;
+        var before = slot.Exposures;
+        SetExposures(slot, exposures.Snapshot());
         try
         {
             return EvaluateScopes(scopes, asOf, commit: false);
         }
         finally
         {
-            if (had)
+            if (before is not null)
             {
-                _bookExposures[bookId] = before!;
+                slot.Exposures = before;
             }
             else
             {
-                _bookExposures.Remove(bookId);
+                _reported.Remove(bookId);
+                slot.Exposures = null;
             }
         }
     }
@@ -197,13 +214,22 @@ public sealed class LimitSet
         var removed = _limits.Values.Where(l => !newIds.Contains(l.Id)).ToList();
         var modified = list.Where(l => _limits.TryGetValue(l.Id, out var old) && old != l)
             .Select(l => new LimitModification(_limits[l.Id], l)).ToList();
-        var dropped = _bookExposures.Keys.Where(b => !hierarchy.ContainsBook(b)).ToList();
+        var dropped = _reported.Keys.Where(b => !hierarchy.ContainsBook(b)).ToList();
         var hierarchyChanged = !Hierarchy.SameTreeAs(hierarchy);
 
         Hierarchy = hierarchy;
         foreach (var book in dropped)
         {
-            _bookExposures.Remove(book);
+            _reported.Remove(book);
+        }
+
+        // Kept books move to the new hierarchy's slots, each keeping its place in the reporting order.
+        _index = new ScopeIndex(hierarchy);
+        foreach (var (book, old) in _reported.ToList())
+        {
+            var slot = _index.Book(book)!;
+            slot.Exposures = old.Exposures;
+            _reported[book] = slot;
         }
 
         foreach (var l in removed)
@@ -226,24 +252,111 @@ public sealed class LimitSet
         ArgumentNullException.ThrowIfNull(bookId);
         ArgumentNullException.ThrowIfNull(exposures);
         var scopes = Hierarchy.ScopesCovering(bookId);
-        CheckFinite(bookId, null, exposures.Totals);
-        foreach (var (group, figures) in exposures.BySpreadGroup)
-        {
-            CheckFinite(bookId, group, figures);
-        }
-
+        CheckFinite(bookId, exposures);
         return scopes;
+    }
+
+    /// <summary>As <see cref="CheckBookUpdate"/>, the same exceptions in the same order, returning the book's slot.</summary>
+    private BookSlot CheckBook(string bookId, BookExposures exposures)
+    {
+        ArgumentNullException.ThrowIfNull(bookId);
+        ArgumentNullException.ThrowIfNull(exposures);
+        var slot = _index.Book(bookId) ?? throw new KeyNotFoundException($"Book '{bookId}' is not in the book hierarchy.");
+        CheckFinite(bookId, exposures);
+        return slot;
+    }
+
+    private static void CheckFinite(string bookId, BookExposures exposures)
+    {
+        CheckFinite(bookId, null, exposures.Totals);
+        if (exposures.BySpreadGroup.Count > 0) // enumerating an empty dictionary through the interface still allocates
+        {
+            foreach (var (group, figures) in exposures.BySpreadGroup)
+            {
+                CheckFinite(bookId, group, figures);
+            }
+        }
     }
 
     private static void CheckFinite(string bookId, string? spreadGroup, IReadOnlyDictionary<ExposureMeasure, double> figures)
     {
+        if (figures is MeasureFigures array)
+        {
+            if (array.TryFindNonFinite(out var measure, out var value))
+            {
+                ThrowNotFinite(bookId, spreadGroup, measure, value);
+            }
+            return;
+        }
+
         foreach (var (measure, value) in figures)
         {
             if (!double.IsFinite(value))
             {
-                var where = spreadGroup is null ? "" : $" in spread group '{spreadGroup}'";
-                throw new ArgumentOutOfRangeException(nameof(figures), value,
-                    $"Exposure {measure} of book '{bookId}'{where} must be finite, got {value.ToString(CultureInfo.InvariantCulture)}.");
+                ThrowNotFinite(bookId, spreadGroup, measure, value);
+            }
+        }
+    }
+
+    private static void ThrowNotFinite(string bookId, string? spreadGroup, ExposureMeasure measure, double value)
+    {
+        var where = spreadGroup is null ? "" : $" in spread group '{spreadGroup}'";
+        throw new ArgumentOutOfRangeException("figures", value,
+            $"Exposure {measure} of book '{bookId}'{where} must be finite, got {value.ToString(CultureInfo.InvariantCulture)}.");
+    }
+
+    /// <summary>Stores a book's figures; a book reported for the first time joins the end of the reporting order.</summary>
+    private void SetExposures(BookSlot slot, BookExposures exposures)
+    {
+        if (slot.Exposures is null)
+        {
+            _reported.Add(slot.Id, slot);
+        }
+
+        slot.Exposures = exposures;
+    }
+
+    /// <summary>
+    /// The sum over <paramref name="books"/> of the measure (a book without figures adds nothing, a missing figure 0), in
+    /// the given order. Array-backed totals are read directly; anything else through <see cref="BookExposures.Get"/>.
+    /// </summary>
+    private static double Sum(BookSlot[] books, ExposureMeasure measure, string? spreadGroup)
+    {
+        var sum = 0.0;
+        foreach (var book in books)
+        {
+            if (book.Exposures is { } figures)
+            {
+                sum += spreadGroup is null && figures.Totals is MeasureFigures totals ? totals.ValueOrZero(measure) : figures.Get(measure, spreadGroup);
+            }
+        }
+
+        return sum;
+    }
+
+    /// <summary>Judges the active limits of one scope on its current sum, adding the changes to <paramref name="changes"/>.</summary>
+    private void Evaluate(ScopeSlot scope, DateTimeOffset asOf, bool commit, List<LimitStatusChange> changes)
+    {
+        if (scope.Limits is not { } limits)
+        {
+            return;
+        }
+
+        foreach (var limit in limits)
+        {
+            if (!limit.IsActiveAt(asOf))
+            {
+                continue;
+            }
+
+            var change = LimitEvaluator.Evaluate(limit, _statuses[limit.Id], Sum(scope.Books, limit.Measure, limit.SpreadGroup));
+            if (change is not null)
+            {
+                changes.Add(change);
+                if (commit)
+                {
+                    _statuses[limit.Id] = change.Current;
+                }
             }
         }
     }
@@ -253,27 +366,9 @@ public sealed class LimitSet
         var changes = new List<LimitStatusChange>();
         foreach (var scope in scopes)
         {
-            if (!_limitsByScope.TryGetValue(scope, out var limits))
+            if (_limitsByScope.ContainsKey(scope))
             {
-                continue;
-            }
-
-            foreach (var limit in limits)
-            {
-                if (!limit.IsActiveAt(asOf))
-                {
-                    continue;
-                }
-
-                var change = LimitEvaluator.Evaluate(limit, _statuses[limit.Id], ExposureOf(scope, limit.Measure, limit.SpreadGroup));
-                if (change is not null)
-                {
-                    changes.Add(change);
-                    if (commit)
-                    {
-                        _statuses[limit.Id] = change.Current;
-                    }
-                }
+                Evaluate(_index.Of(scope), asOf, commit, changes);
             }
         }
 
@@ -294,6 +389,8 @@ public sealed class LimitSet
 
             list.Add(limit);
         }
+
+        _index.AttachLimits(_limitsByScope);
     }
 
     private static void ThrowIfInvalid(BookHierarchy hierarchy, List<LimitDefinition> limits)

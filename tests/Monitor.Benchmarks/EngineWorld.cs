@@ -71,7 +71,7 @@ internal sealed class EngineWorld
         Engine.ApplyParYields(CurveKeyLabel.Government, Now.AddMinutes(-1), ParYields[turn & 1], Now);
 
     // Semiannual par yield at T: 2 (1 - DF(T)) / sum of DF at the coupon dates (bond-equivalent, as the par-yield fit reads it).
-    private static (string Tenor, double ParYield)[] ParYieldsOf(IZeroCurve curve) =>
+    internal static (string Tenor, double ParYield)[] ParYieldsOf(IZeroCurve curve) =>
         [.. TenorYears.Select(years =>
         {
             var annuity = 0.0;
@@ -94,6 +94,6 @@ internal sealed class EngineWorld
         return dirty - bond.AccruedInterest(settlement);
     }
 
-    private static Bond ToBond(SyntheticBond b) =>
+    internal static Bond ToBond(SyntheticBond b) =>
         new(b.Id, "Synthetic Veloria Issuer", b.SpreadGroup, "XTS", (decimal)b.Coupon, b.Frequency, DayCountConvention.ActActIcma, b.Issue, null, b.Maturity);
 }

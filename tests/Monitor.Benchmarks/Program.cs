@@ -9,6 +9,11 @@ using Monitor.Benchmarks;
 //   dotnet run -c Release --project tests/Monitor.Benchmarks -- --short --filter '*'
 //   dotnet run -c Release --project tests/Monitor.Benchmarks -- --filter '*Revalue*'
 //   dotnet run -c Release --project tests/Monitor.Benchmarks -- --memory holdings|ledgers
+//   dotnet run -c Release --project tests/Monitor.Benchmarks -- --latency
+if (args.Length >= 1 && args[0] == "--latency")
+{
+    return SmallBooksLatencyReport.Run();
+}
 if (args.Length >= 1 && args[0] == "--memory")
 {
     return MemoryReport.Run(args.Length > 1 ? args[1] : "holdings");

@@ -17,6 +17,21 @@ public class MeasureFiguresTests
     }
 
     [Fact]
+    public void Built_from_a_span_it_holds_the_values_in_enum_order_and_refuses_a_wrong_length()
+    {
+        double[] values = [.. Enumerable.Range(0, MeasureFigures.MeasureCount).Select(i => i * 1.5 - 3)];
+
+        var figures = new MeasureFigures(values);
+        values[0] = 99; // copied: a later change of the caller's array must not reach the figures
+
+        Assert.Equal(Enum.GetValues<ExposureMeasure>().Length, MeasureFigures.MeasureCount);
+        Assert.Equal(-3.0, figures[ExposureMeasure.MarketValue]);
+        Assert.Equal(values.Skip(1), figures.Values.Skip(1));
+        Assert.Equal(figures.Values, figures.Select(p => p.Value));
+        Assert.Throws<ArgumentException>(() => new MeasureFigures(values.AsSpan(1)));
+    }
+
+    [Fact]
     public void A_limit_set_reads_a_book_from_immutable_figures_and_from_a_dictionary_the_caller_changes_later_alike()
     {
         var hierarchy = BookHierarchyTests.Sample();

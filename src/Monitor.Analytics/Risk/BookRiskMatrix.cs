@@ -39,6 +39,9 @@ public sealed class BookRiskMatrix
     /// <summary>Whether convexities were computed.</summary>
     public RiskDepth Depth => Layout.Depth;
 
+    /// <summary>Length of <see cref="Moments"/>: 1 + n + n(n+1)/2 for n = base + spread factors.</summary>
+    public int MomentWidth => Layout.Width;
+
     internal CommonMomentLayout Layout { get; }
 
     /// <summary>Dirty value in money of book <paramref name="book"/>.</summary>
@@ -73,6 +76,19 @@ public sealed class BookRiskMatrix
             throw new InvalidOperationException("This matrix was computed with RiskDepth.Durations: it holds no convexities.");
         }
         return new FactorExposures(BaseFactorCount, SpreadFactorCount, _data.AsSpan(Offset(book), Layout.Width));
+    }
+
+    /// <summary>
+    /// The book's money moments in the layout of <see cref="FactorExposures.FromMoments"/> (only for
+    /// <see cref="RiskDepth.Full"/>): value, the first moments, then the upper triangle of second moments.
+    /// </summary>
+    public ReadOnlySpan<double> Moments(int book)
+    {
+        if (Depth != RiskDepth.Full)
+        {
+            throw new InvalidOperationException("This matrix was computed with RiskDepth.Durations: it holds no convexities.");
+        }
+        return _data.AsSpan(Offset(book), Layout.Width);
     }
 
     internal Span<double> Row(int book) => _data.AsSpan(Offset(book), Layout.Stride);

@@ -130,7 +130,19 @@ public sealed class CurveGrid
         }
         var government = rows[CurveKey.Government];
         var governmentUsed = usedDates is null ? null : usedDates(CurveKey.Government) ?? []; // resolved before the threads start
-        Parallel.For(0, spreads.Count + 1, key =>
+        // One key alone (government only) runs on the calling thread: a parallel loop of one item still wakes pool
+        // threads, which spin for work on a 2-core machine shared with the broker.
+        if (spreads.Count == 0)
+        {
+            FillKey(0);
+        }
+        else
+        {
+            Parallel.For(0, spreads.Count + 1, FillKey);
+        }
+        return new CurveGrid(valuationDate, count, nb, rows, depth) { CoversAllDates = usedDates is null };
+
+        void FillKey(int key)
         {
             Span<double> loadings = stackalloc double[PositionRisk.MaxFactors];
             var (keyRows, curve, used) = key == 0 ? (government, null, governmentUsed) : spreads[key - 1];
@@ -160,8 +172,7 @@ public sealed class CurveGrid
                     MomentLayout.FillUnitFirstMoments(t, Math.Exp(-z * t), loadings[..n], keyRows.Row(d));
                 }
             }
-        });
-        return new CurveGrid(valuationDate, count, nb, rows, depth) { CoversAllDates = usedDates is null };
+        }
     }
 
     internal GridRows RowsFor(string curveKey) =>

@@ -77,6 +77,24 @@ public sealed class FactorExposures
         return new FactorExposures(baseFactorCount, spreadFactorCount, 0.0, new double[n], new double[n * n]);
     }
 
+    /// <summary>
+    /// Exposures from a row of money moments in the layout of <see cref="MomentLayout"/> (value, first moments, upper
+    /// triangle of second moments over base then spread factors), as <see cref="BookRiskMatrix.Moments"/> gives it.
+    /// </summary>
+    /// <exception cref="ArgumentException">The row is not 1 + n + n(n+1)/2 long for n = base + spread factors.</exception>
+    public static FactorExposures FromMoments(int baseFactorCount, int spreadFactorCount, ReadOnlySpan<double> moments)
+    {
+        CheckCounts(baseFactorCount, spreadFactorCount);
+        var width = MomentLayout.Width(baseFactorCount + spreadFactorCount);
+        if (moments.Length != width)
+        {
+            throw new ArgumentException(
+                string.Create(CultureInfo.InvariantCulture, $"A moment row for {baseFactorCount} + {spreadFactorCount} factors has {width} entries, got {moments.Length}."),
+                nameof(moments));
+        }
+        return new FactorExposures(baseFactorCount, spreadFactorCount, moments);
+    }
+
     /// <summary>Base factor duration D_k in years (unit form, value-weighted).</summary>
     public double BaseDuration(int k) => _first[BaseIndex(k)] / Value;
 

@@ -13,6 +13,13 @@ namespace Monitor.Analytics.Risk;
 public static class HoldingsRiskCalculator
 {
     /// <summary>
+    /// Below this many vector multiply-adds (holdings x vectors a row) the pass runs on the calling thread: 1,000 books
+    /// of 10 holdings is tens of microseconds of work, less than handing chunks to pool threads that, on a busy 2-core
+    /// machine, may wait for a core (SmallBooksRefitBenchmarks, tests/Monitor.Benchmarks/README.md).
+    /// </summary>
+    private const long SerialBelowMultiplyAdds = 100_000;
+
+    /// <summary>
     /// Exposures of every book of <paramref name="books"/> (row b of the result is books[b]). The books must not
     /// change during the call.
     /// </summary>
@@ -30,13 +37,24 @@ public static class HoldingsRiskCalculator
         {
             output = new BookRiskMatrix(n, rows.BaseFactorCount, rows.SpreadFactorCount, rows.Depth);
         }
+        var holdings = 0L;
         for (var b = 0; b < n; b++)
         {
             var book = books[b] ?? throw new ArgumentException($"books[{b}] is null.", nameof(books));
             book.CheckAgainst(rows.Count);
+            holdings += book.Count;
         }
         var vectors = rows.Stride / Vector<double>.Count;
         var result = output;
+        if (holdings * vectors < SerialBelowMultiplyAdds || maxDegreeOfParallelism == 1)
+        {
+            for (var b = 0; b < n; b++)
+            {
+                var book = books[b];
+                RowAccumulator.Accumulate(book.Instruments, book.Quantities, rows.Data, rows.Stride, vectors, result.Row(b));
+            }
+            return output;
+        }
         var options = new ParallelOptions { MaxDegreeOfParallelism = maxDegreeOfParallelism };
         var chunk = Math.Max(1, n / (8 * Environment.ProcessorCount));
         Parallel.ForEach(Partitioner.Create(0, n, chunk), options, range =>

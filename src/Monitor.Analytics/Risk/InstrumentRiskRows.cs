@@ -73,7 +73,18 @@ public sealed class InstrumentRiskRows
         var data = new double[Math.Max(1, count) * layout.Stride];
         var options = new ParallelOptions { MaxDegreeOfParallelism = maxDegreeOfParallelism };
         var chunk = Math.Max(64, count / (4 * Environment.ProcessorCount));
-        Parallel.ForEach(Partitioner.Create(0, count, chunk), options, range =>
+        // A table of one chunk or less (the load's 40 bonds) runs on the calling thread: no pool threads woken for it.
+        if (count <= chunk || maxDegreeOfParallelism == 1)
+        {
+            FillRange(Tuple.Create(0, count));
+        }
+        else
+        {
+            Parallel.ForEach(Partitioner.Create(0, count, chunk), options, FillRange);
+        }
+        return new InstrumentRiskRows(layout, count, data);
+
+        void FillRange(Tuple<int, int> range)
         {
             Span<double> acc = stackalloc double[MaxGridStride];
             var starts = table.Starts;
@@ -91,8 +102,7 @@ public sealed class InstrumentRiskRows
                     target[s.Map[c]] = acc[c];
                 }
             }
-        });
-        return new InstrumentRiskRows(layout, count, data);
+        }
     }
 
     /// <summary>Exposures of one unit (100 face) of <paramref name="instrument"/> (only for <see cref="RiskDepth.Full"/>).</summary>

@@ -29,11 +29,32 @@ public sealed class BookState
     public IReadOnlyList<string> CurveKeys =>
         _holdings.Where(h => h.Value.Count > 0).Select(h => h.Key).Order(StringComparer.Ordinal).ToArray();
 
+    private BookUpdate? _last;
+    private BookRisk? _risk;
+
     public BookExposures? Exposures { get; set; }
 
-    public BookRisk? Risk { get; set; }
+    /// <summary>The last revaluation's exposures, built from its moment rows on first read (then the same object, the update's).</summary>
+    public BookRisk? Risk
+    {
+        get => _risk ?? _last?.Risk;
+        set
+        {
+            _risk = value;
+            _last = null;
+        }
+    }
 
     public DateTimeOffset? UpdatedAt { get; set; }
+
+    /// <summary>A revaluation's figures: the update carries the measures and the moments behind <see cref="Risk"/>.</summary>
+    internal void SetFigures(BookUpdate update, DateTimeOffset now)
+    {
+        _last = update;
+        _risk = null;
+        Exposures = update.Exposures;
+        UpdatedAt = now;
+    }
 
     /// <summary>Whether the book holds anything under a curve key that <paramref name="matches"/> (no allocation: once per book per change).</summary>
     internal bool HoldsAny(Func<string, bool> matches)

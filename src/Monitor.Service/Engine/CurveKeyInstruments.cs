@@ -16,7 +16,11 @@ namespace Monitor.Service.Engine;
 /// </remarks>
 internal sealed class CurveKeyInstruments
 {
+    /// <summary>Passes of fewer books than this (a trade's) neither use nor replace the kept matrix.</summary>
+    private const int KeptMatrixMinBooks = 16;
+
     private InstrumentRiskRows? _rows;
+    private BookRiskMatrix? _matrix;
     private IFactorCurve? _rowsBase;
     private IFactorCurve? _rowsSpread;
 
@@ -53,5 +57,20 @@ internal sealed class CurveKeyInstruments
         _rowsSpread = spreadCurve;
         RowBuilds++;
         return _rows;
+    }
+
+    /// <summary>
+    /// Each book's moments on <paramref name="rows"/>. A pass over many books overwrites the matrix of the last such pass
+    /// when the book count is the same (a refit revalues the same books each time): a thousand books' matrix is past the
+    /// large-object threshold, and a new one per refit would be collected only by full collections. Callers copy what
+    /// they keep out of the matrix before the next pass.
+    /// </summary>
+    public BookRiskMatrix ComputeBooks(IReadOnlyList<BookHoldings> holdings, InstrumentRiskRows rows)
+    {
+        if (holdings.Count < KeptMatrixMinBooks)
+        {
+            return HoldingsRiskCalculator.ComputeAll(holdings, rows);
+        }
+        return _matrix = HoldingsRiskCalculator.ComputeAll(holdings, rows, _matrix);
     }
 }

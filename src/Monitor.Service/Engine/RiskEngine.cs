@@ -400,10 +400,11 @@ public sealed class RiskEngine
     {
         var clock = Stopwatch.StartNew();
         var government = _curves[CurveKey.Government].Curve!;
-        var priced = new List<BookState>();
+        var priced = new List<BookState>(books is ICollection<BookState> all ? all.Count : 0);
+        Func<string, bool> awaitsCurve = k => !CurveKey.IsGovernment(k) && _curves[k].Curve is null; // one delegate, not one per book
         foreach (var book in books)
         {
-            if (book.HoldsAny(k => !CurveKey.IsGovernment(k) && _curves[k].Curve is null))
+            if (book.HoldsAny(awaitsCurve))
             {
                 result.BooksAwaitingCurves.Add(book.Id);
             }
@@ -412,14 +413,12 @@ public sealed class RiskEngine
                 priced.Add(book);
             }
         }
-        var byKey = priced.Select(_ => new Dictionary<string, FactorExposures>(StringComparer.Ordinal)).ToArray();
-        var total = priced.Select(_ => FactorExposures.Zero(government.FactorCount, 0)).ToArray();
         // Keys in ordinal order: each total is summed key by key in the order the per-key figures are listed.
         var passes = new List<(string Key, CurveKeyInstruments Instruments, IFactorCurve? Spread, List<int> Holders, List<BookHoldings> Holdings)>();
         foreach (var (key, instruments) in _byCurveKey.OrderBy(k => k.Key, StringComparer.Ordinal))
         {
-            var holders = new List<int>();
-            var holdings = new List<BookHoldings>();
+            var holders = new List<int>(priced.Count);
+            var holdings = new List<BookHoldings>(priced.Count);
             for (var i = 0; i < priced.Count; i++)
             {
                 if (priced[i].HoldingsUnder(key) is { } held)
@@ -435,28 +434,37 @@ public sealed class RiskEngine
         }
         // One key's grid is mostly serial work (its base curve date by date): build stale keys side by side.
         var rows = new InstrumentRiskRows[passes.Count];
-        Parallel.For(0, passes.Count, k => rows[k] = passes[k].Instruments.Rows(ValuationDate, government, passes[k].Spread));
+        if (passes.Count == 1)
+        {
+            rows[0] = passes[0].Instruments.Rows(ValuationDate, government, passes[0].Spread);
+        }
+        else
+        {
+            Parallel.For(0, passes.Count, k => rows[k] = passes[k].Instruments.Rows(ValuationDate, government, passes[k].Spread));
+        }
+        var matrices = new BookRiskMatrix[passes.Count];
+        // rowOf[i * passes + k]: book i's row in pass k's matrix, or -1 when it holds nothing under that key.
+        var rowOf = new int[priced.Count * passes.Count];
+        Array.Fill(rowOf, -1);
         for (var k = 0; k < passes.Count; k++)
         {
-            var (key, _, _, holders, holdings) = passes[k];
-            var matrix = HoldingsRiskCalculator.ComputeAll(holdings, rows[k]);
+            var (_, instruments, _, holders, holdings) = passes[k];
+            matrices[k] = instruments.ComputeBooks(holdings, rows[k]);
             for (var j = 0; j < holders.Count; j++)
             {
-                var exposures = matrix.ToExposures(j);
-                byKey[holders[j]].Add(key, exposures);
-                total[holders[j]] = total[holders[j]].Plus(exposures);
+                rowOf[holders[j] * passes.Count + k] = j;
             }
         }
+        var figures = new BookFiguresBuilder(government.FactorCount, passes.ConvertAll(p => p.Key), matrices, priced.Count);
         var limitUpdates = new (string BookId, BookExposures Exposures)[priced.Count];
+        result.Books.EnsureCapacity(result.Books.Count + priced.Count);
         for (var i = 0; i < priced.Count; i++)
         {
             var book = priced[i];
-            var risk = new BookRisk(total[i], byKey[i]);
-            var exposures = ExposureMapping.ToBookExposures(risk);
-            book.Risk = risk;
-            book.Exposures = exposures;
-            book.UpdatedAt = now;
-            result.Books.Add(new BookUpdate(book.Id, exposures, risk));
+            var (moments, exposures) = figures.Build(rowOf.AsSpan(i * passes.Count, passes.Count));
+            var update = new BookUpdate(book.Id, exposures, moments);
+            book.SetFigures(update, now);
+            result.Books.Add(update);
             limitUpdates[i] = (book.Id, exposures);
         }
         // All books first, then each desk and the firm once on the new figures (not once per book).

@@ -142,6 +142,57 @@ public class HoldingsRiskPropertyTests
     }
 
     [Fact]
+    public void Many_books_split_over_threads_get_the_same_rows_as_one_thread_and_few_books_run_on_one()
+    {
+        // 4,000 books of up to 14 instruments at full depth (7+ vectors a row): past the serial threshold of 100,000
+        // multiply-adds, so the default pass splits the books over threads.
+        var w = MakeWorld(11);
+        var grid = CurveGrid.Build(w.Dates, RiskTestData.ValuationDate, w.BaseCurve, w.Spreads);
+        var rows = InstrumentRiskRows.Build(w.Table, grid, RiskDepth.Full);
+        var rng = new Random(11);
+        var books = Enumerable.Range(0, 4_000).Select(_ =>
+        {
+            var holdings = new BookHoldings();
+            for (var t = 0; t < 60; t++)
+            {
+                holdings.Add(rng.Next(w.Instruments.Count), rng.Next(-20, 40) * 2_500.0 + 10.0);
+            }
+            return holdings;
+        }).ToList();
+
+        var split = HoldingsRiskCalculator.ComputeAll(books, rows);
+        var serial = HoldingsRiskCalculator.ComputeAll(books, rows, maxDegreeOfParallelism: 1);
+        var few = HoldingsRiskCalculator.ComputeAll(books.Take(3).ToList(), rows);
+
+        for (var b = 0; b < books.Count; b++)
+        {
+            Assert.True(split.Moments(b).SequenceEqual(serial.Moments(b)), $"book {b}");
+            Assert.True(b >= 3 || few.Moments(b).SequenceEqual(serial.Moments(b)), $"book {b} of 3");
+        }
+    }
+
+    [Fact]
+    public void Rows_of_a_large_table_split_over_threads_equal_the_one_thread_rows_and_a_government_grid_built_inline()
+    {
+        // 400 instruments: past one chunk of 64, so the default build splits them; the grid has the two spread keys too.
+        var w = MakeWorld(12);
+        var rng = new Random(12);
+        for (var i = 0; i < 400; i++)
+        {
+            w.Table.Register(Keys[rng.Next(Keys.Length)], RiskTestData.RandomBond(rng));
+        }
+        var grid = CurveGrid.Build(w.Dates, RiskTestData.ValuationDate, w.BaseCurve, w.Spreads);
+
+        var split = InstrumentRiskRows.Build(w.Table, grid, RiskDepth.Full);
+        var serial = InstrumentRiskRows.Build(w.Table, grid, RiskDepth.Full, maxDegreeOfParallelism: 1);
+
+        Assert.True(split.Data.SequenceEqual(serial.Data));
+        // A government-only grid (one key, filled on the calling thread) equals the government rows of the grid with spreads.
+        var government = CurveGrid.Build(w.Dates, RiskTestData.ValuationDate, w.BaseCurve, null);
+        Assert.True(government.RowsFor(CurveKey.Government).Data.SequenceEqual(grid.RowsFor(CurveKey.Government).Data));
+    }
+
+    [Fact]
     public void A_matrix_is_reused_and_a_durations_pass_refuses_convexities()
     {
         var w = MakeWorld(7);

@@ -162,7 +162,117 @@ public sealed class RiskEngineHoldingsTests : IDisposable
         AssertMatchesReference(engine);
     }
 
-    private RiskEngine OpenedEngine()
+    [Theory]
+    [InlineData(4)]
+    [InlineData(5)]
+    public void Measures_read_from_the_moment_rows_equal_the_mapping_of_the_books_factor_exposures_bit_for_bit(int seed)
+    {
+        var random = new Random(seed);
+        var engine = OpenedEngine();
+        var tradable = Tradable(engine);
+        foreach (var book in BookIds.Skip(1)) // B1 stays empty: its figures are all zero
+        {
+            for (var i = 0; i < random.Next(1, 8); i++)
+            {
+                engine.LoadPosition(book, tradable[random.Next(tradable.Length)], Face(random));
+            }
+        }
+        var all = engine.RevalueAll(TestMarket.Now);
+        var refit = Refit(engine, TestMarket.Between(0.5, TestMarket.Now.AddMinutes(-20)));
+        var trade = engine.ApplyTrade(new TradeInput("T-9", 1, TradeAction.New, "B2", tradable[0], 1_000_000, 99, TestMarket.Now), TestMarket.Now);
+
+        Assert.Contains(all.Books, u => u.Exposures.BySpreadGroup.Count > 0);
+        foreach (var update in all.Books.Concat(refit.Books).Concat(trade.Books))
+        {
+            // The straightforward path: the book's FactorExposures (total summed key by key) through ExposureMapping.
+            var expected = ExposureMapping.ToBookExposures(update.Risk);
+            AssertSameBits(expected.Totals, update.Exposures.Totals, update.Book);
+            Assert.Equal(expected.BySpreadGroup.Keys, update.Exposures.BySpreadGroup.Keys);
+            foreach (var (group, figures) in expected.BySpreadGroup)
+            {
+                AssertSameBits(figures, update.Exposures.BySpreadGroup[group], $"{update.Book} {group}");
+            }
+        }
+        foreach (var update in refit.Books.Where(u => u.Book != "B2")) // B2 traded since: its state holds the trade's figures
+        {
+            Assert.Same(engine.Books[update.Book].Risk, update.Risk);
+        }
+        Assert.All(engine.Books["B1"].Exposures!.Totals.Values, v => Assert.Equal(0.0, v));
+    }
+
+    [Fact]
+    public void A_thousand_books_sharing_blocks_of_moment_rows_each_read_their_own_rows()
+    {
+        // Past the 8,192 doubles of one block: 1,000 books of 10 (government) or 38 (with a spread group) doubles each.
+        string[] books = [.. Enumerable.Range(0, 1_000).Select(b => $"M{b:D4}")];
+        var engine = OpenedEngine(books);
+        var tradable = Tradable(engine);
+        var random = new Random(8);
+        foreach (var book in books)
+        {
+            engine.LoadPosition(book, tradable[random.Next(tradable.Length)], Face(random));
+            engine.LoadPosition(book, tradable[random.Next(tradable.Length)], Face(random));
+        }
+
+        var result = engine.RevalueAll(TestMarket.Now);
+
+        Assert.Equal(books.Length, result.Books.Count);
+        foreach (var update in result.Books)
+        {
+            var expected = ExposureMapping.ToBookExposures(update.Risk);
+            AssertSameBits(expected.Totals, update.Exposures.Totals, update.Book);
+            Assert.Equal(engine.Books[update.Book].CurveKeys, update.Risk.ByCurveKey.Keys.Order(StringComparer.Ordinal));
+        }
+        Assert.Contains(result.Books, u => u.Exposures.BySpreadGroup.Count > 0);
+        Assert.Contains(result.Books, u => u.Exposures.BySpreadGroup.Count == 0);
+    }
+
+    [Fact]
+    public void An_update_keeps_its_own_factor_exposures_after_its_book_is_revalued_again()
+    {
+        var engine = OpenedEngine();
+        var tradable = Tradable(engine);
+        engine.LoadPosition("B3", tradable[0], 5_000_000);
+        var first = Assert.Single(engine.RevalueAll(TestMarket.Now).Books, u => u.Book == "B3");
+
+        var second = Assert.Single(engine.ApplyTrade(new TradeInput("T-1", 1, TradeAction.New, "B3", tradable[^1], 7_000_000, 99, TestMarket.Now), TestMarket.Now).Books);
+
+        // Read only now, after B3 moved on: the first update's factors are still those of its own figures.
+        Assert.Equal(first.Exposures.Totals[ExposureMeasure.MarketValue], first.Risk.Total.Value);
+        Assert.Equal(second.Exposures.Totals[ExposureMeasure.MarketValue], second.Risk.Total.Value);
+        Assert.NotEqual(first.Risk.Total.Value, second.Risk.Total.Value);
+        Assert.Same(second.Risk, engine.Books["B3"].Risk);
+    }
+
+    [Theory]
+    [InlineData(0)]
+    [InlineData(1)]
+    [InlineData(3)]
+    public void Measures_from_a_moment_row_equal_those_of_the_factor_exposures_it_makes(int spreadFactors)
+    {
+        var random = new Random(11 + spreadFactors);
+        var n = 3 + spreadFactors;
+        var row = Enumerable.Range(0, 1 + n + n * (n + 1) / 2).Select(_ => (random.NextDouble() - 0.4) * 1e7).ToArray();
+        var exposures = FactorExposures.FromMoments(3, spreadFactors, row);
+        var measures = new double[MeasureFigures.MeasureCount];
+
+        ExposureMapping.MeasuresFromMoments(3, spreadFactors, row[0], row.AsSpan(1, n), row[1 + n], measures);
+
+        AssertSameBits(ExposureMapping.Measures(exposures), new MeasureFigures(measures), $"{spreadFactors} spread factors");
+        Assert.Throws<ArgumentException>(() => FactorExposures.FromMoments(3, spreadFactors, row.AsSpan(1)));
+    }
+
+    private static void AssertSameBits(IReadOnlyDictionary<ExposureMeasure, double> expected, IReadOnlyDictionary<ExposureMeasure, double> actual, string what)
+    {
+        Assert.Equal(expected.Keys, actual.Keys);
+        foreach (var (measure, value) in expected)
+        {
+            Assert.True(BitConverter.DoubleToInt64Bits(value) == BitConverter.DoubleToInt64Bits(actual[measure]),
+                $"{what} {measure}: expected {value:R}, got {actual[measure]:R}");
+        }
+    }
+
+    private RiskEngine OpenedEngine(string[]? books = null)
     {
         var limits = _folder.Combine("limits.json");
         File.WriteAllText(limits, $$"""
@@ -170,7 +280,7 @@ public sealed class RiskEngineHoldingsTests : IDisposable
               "schemaVersion": 1,
               "firm": "test-firm",
               "defaults": { "warning": 0.8, "hysteresis": 0.05 },
-              "desks": [ { "id": "mixed", "books": [{{string.Join(", ", BookIds.Select(b => $"\"{b}\""))}}] } ],
+              "desks": [ { "id": "mixed", "books": [{{string.Join(", ", (books ?? BookIds).Select(b => $"\"{b}\""))}}] } ],
               "limits": [ { "id": "firm-value", "scope": "firm", "measure": "marketValue", "lower": -1000000000000, "upper": 1000000000000 } ]
             }
             """);
