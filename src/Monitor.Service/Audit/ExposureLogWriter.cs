@@ -3,6 +3,7 @@ using System.Text.RegularExpressions;
 using Serilog;
 using Serilog.Core;
 using Serilog.Events;
+using Monitor.Service.Engine;
 using Monitor.Service.Storage;
 
 namespace Monitor.Service.Audit;
@@ -20,6 +21,7 @@ public sealed partial class ExposureLogWriter : IDisposable
     private readonly Lock _gate = new();
     private readonly ExposureLogOptions _options;
     private readonly TimeProvider _time;
+    private readonly BusinessDayRoll _roll;
     private readonly DailyAuditFileSink _sink;
     private readonly DiskFlushControl _diskFlush = new();
     private readonly Logger _logger;
@@ -31,16 +33,16 @@ public sealed partial class ExposureLogWriter : IDisposable
     private ExposureLogWriteException? _lastError;
     private bool _disposed;
 
-    /// <summary>Opens the log in <see cref="ExposureLogOptions.Folder"/> and continues its chain where it stopped.</summary>
+    /// <summary>Opens the log in <see cref="ExposureLogOptions.Folder"/> and continues its chain where it stopped. Day files are named by the business date of <paramref name="roll"/> (default midnight UTC).</summary>
     /// <exception cref="ArgumentException">Invalid options (the message names the key).</exception>
     /// <exception cref="ExposureLogOpenException">The end of the chain cannot be read or fails its hash.</exception>
-    public ExposureLogWriter(ExposureLogOptions options, TimeProvider timeProvider)
-        : this(options, timeProvider, null)
+    public ExposureLogWriter(ExposureLogOptions options, TimeProvider timeProvider, BusinessDayRoll? roll = null)
+        : this(options, timeProvider, null, roll)
     {
     }
 
     /// <summary>As the public constructor, plus a test seam: a decorator of each day file's stream (to inject write failures).</summary>
-    internal ExposureLogWriter(ExposureLogOptions options, TimeProvider timeProvider, Func<Stream, Stream>? streamDecorator)
+    internal ExposureLogWriter(ExposureLogOptions options, TimeProvider timeProvider, Func<Stream, Stream>? streamDecorator, BusinessDayRoll? roll = null)
     {
         ArgumentNullException.ThrowIfNull(options);
         ArgumentNullException.ThrowIfNull(timeProvider);
@@ -52,6 +54,7 @@ public sealed partial class ExposureLogWriter : IDisposable
 
         _options = options;
         _time = timeProvider;
+        _roll = roll ?? BusinessDayRoll.UtcMidnight;
         ContinueChain();
         _sink = new DailyAuditFileSink(new ExposureLogFileHooks(options.FlushToDisk, streamDecorator, _diskFlush));
         _logger = new LoggerConfiguration().MinimumLevel.Verbose().AuditTo.Sink(_sink).CreateLogger();
@@ -213,7 +216,7 @@ public sealed partial class ExposureLogWriter : IDisposable
     private ExposureLogRecord Write(string kind, DateTimeOffset eventTime, ExposureLogCause cause, JsonElement payload)
     {
         var written = _time.GetUtcNow();
-        var day = ExposureLogFiles.DayOf(written, _options.BusinessDayUtcOffset);
+        var day = _roll.BusinessDateOf(written);
         if (_lastDay is { } lastDay && day < lastDay)
         {
             day = lastDay; // the clock stepped back: never write behind the newest file, or the chain would run backwards

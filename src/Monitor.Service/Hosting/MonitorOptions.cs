@@ -19,8 +19,11 @@ public sealed class MonitorOptions
     /// <summary>Optional quotes to fit the opening curves from before the first message.</summary>
     public string? OpeningQuotesFile { get; set; }
 
-    /// <summary>Valuation (spot) date; default the next business day after today's UTC date.</summary>
+    /// <summary>Valuation (spot) date; default the next business day after today's business date (<see cref="BusinessDay"/>).</summary>
     public DateOnly? ValuationDate { get; set; }
+
+    /// <summary>When the business day rolls (time of day and IANA time zone); default midnight UTC.</summary>
+    public BusinessDayOptions BusinessDay { get; set; } = new();
 
     /// <summary>Model of the government curve: NelsonSiegel (default) or Svensson. Spread curves are always Nelson-Siegel.</summary>
     public CurveModel BaseCurveModel { get; set; } = CurveModel.NelsonSiegel;

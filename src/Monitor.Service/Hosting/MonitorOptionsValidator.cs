@@ -13,6 +13,7 @@ public sealed class MonitorOptionsValidator : IValidateOptions<MonitorOptions>
         RequireFile(failures, "Monitor:LimitsFile", options.LimitsFile, required: true);
         RequireFile(failures, "Monitor:PositionsFile", options.PositionsFile, required: false);
         RequireFile(failures, "Monitor:OpeningQuotesFile", options.OpeningQuotesFile, required: false);
+        failures.AddRange(options.BusinessDay.Validate());
         if (!Enum.IsDefined(options.BaseCurveModel))
         {
             failures.Add($"Monitor:BaseCurveModel: '{options.BaseCurveModel}' is not a model; use NelsonSiegel or Svensson.");

@@ -53,13 +53,25 @@ public static class ServiceRegistration
                     journal.Folder = log.Value.Folder.TrimEnd('/', '\\') + "-journal";
                 }
             });
+        // One business-day roll (Monitor:BusinessDay) names the journal's and the log's day files and closes the day.
+        foreach (var retired in new[] { "ExposureLog:BusinessDayUtcOffset", "Journal:BusinessDayUtcOffset" })
+        {
+            if (configuration[retired] is not null)
+            {
+                throw new OptionsValidationException(retired, typeof(BusinessDayOptions),
+                    [$"{retired}: no longer read; the business day is set once by Monitor:BusinessDay:RollTime and Monitor:BusinessDay:TimeZone (IANA). Remove the key."]);
+            }
+        }
+        services.AddSingleton(sp => sp.GetRequiredService<IOptions<MonitorOptions>>().Value.BusinessDay.ToRoll());
         services.AddSingleton(sp => EngineRecovery.Start(
             EngineFactory.Create(sp.GetRequiredService<IOptions<MonitorOptions>>().Value, sp.GetRequiredService<TimeProvider>()),
             sp.GetRequiredService<IOptions<JournalOptions>>().Value,
+            sp.GetRequiredService<BusinessDayRoll>(),
+            sp.GetRequiredService<IOptions<MonitorOptions>>().Value.PositionsFile,
             sp.GetRequiredService<TimeProvider>().GetUtcNow()));
         services.AddSingleton(sp => sp.GetRequiredService<EngineRecovery>().Engine);
-        services.AddSingleton(sp => new TradeJournal(sp.GetRequiredService<IOptions<JournalOptions>>().Value, sp.GetRequiredService<TimeProvider>()));
-        services.AddSingleton(sp => new ExposureLogWriter(sp.GetRequiredService<IOptions<ExposureLogOptions>>().Value, sp.GetRequiredService<TimeProvider>()));
+        services.AddSingleton(sp => new TradeJournal(sp.GetRequiredService<IOptions<JournalOptions>>().Value, sp.GetRequiredService<TimeProvider>(), sp.GetRequiredService<BusinessDayRoll>()));
+        services.AddSingleton(sp => new ExposureLogWriter(sp.GetRequiredService<IOptions<ExposureLogOptions>>().Value, sp.GetRequiredService<TimeProvider>(), sp.GetRequiredService<BusinessDayRoll>()));
         // Every exposure log and journal append of the pipeline runs through the gate: a storage failure stalls, never faults a message.
         services.AddSingleton<StorageFaultGate>();
         services.AddSingleton<QuoteInbox>();

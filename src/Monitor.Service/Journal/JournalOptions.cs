@@ -8,12 +8,6 @@ public sealed class JournalOptions
     /// <summary>Folder of the day files <c>journal-yyyy-MM-dd.jsonl</c>. Required.</summary>
     public string Folder { get; set; } = string.Empty;
 
-    /// <summary>
-    /// Fixed offset added to the writer's UTC clock to find the business day of a record (a fixed offset,
-    /// not a time zone: no daylight-saving shift). Default zero: UTC days.
-    /// </summary>
-    public TimeSpan BusinessDayUtcOffset { get; set; } = TimeSpan.Zero;
-
     /// <summary>Most records written between two flushes (one fsync per batch). Default 512.</summary>
     public int MaxBatch { get; set; } = 512;
 }

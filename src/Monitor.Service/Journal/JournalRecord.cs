@@ -1,7 +1,8 @@
+using Monitor.Analytics.Instruments;
 using Monitor.Analytics.Market;
 using Monitor.Service.Engine;
 
 namespace Monitor.Service.Journal;
 
-/// <summary>One journal line read back: its sequence number and either a trade or a quote.</summary>
-public sealed record JournalRecord(long Seq, DateTimeOffset WrittenTime, TradeInput? Trade, BondQuote? Quote);
+/// <summary>One journal line read back: its sequence number and a trade, a quote or an instrument definition.</summary>
+public sealed record JournalRecord(long Seq, DateTimeOffset WrittenTime, TradeInput? Trade, BondQuote? Quote, Bond? Definition = null);

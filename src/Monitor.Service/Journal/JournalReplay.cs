@@ -13,6 +13,10 @@ public static class JournalReplay
 {
     public static JournalContents Read(string folder, DateOnly day) => ReadFile(JournalFiles.PathOf(folder, day));
 
+    /// <summary>Every day file of the folder from <paramref name="firstDay"/> on, oldest first, read as one.</summary>
+    public static JournalContents ReadFrom(string folder, DateOnly firstDay, DateOnly today) =>
+        JournalContents.Join([.. JournalFiles.List(folder).Where(f => f.Day >= firstDay).Select(f => ReadFile(f.Path))], JournalFiles.PathOf(folder, today));
+
     public static JournalContents ReadFile(string path)
     {
         ArgumentNullException.ThrowIfNull(path);
@@ -32,7 +36,7 @@ public static class JournalReplay
     internal static JournalContents Parse(string path, ReadOnlySpan<byte> bytes)
     {
         var name = System.IO.Path.GetFileName(path);
-        var trades = new List<TradeInput>();
+        var changes = new List<JournalRecord>();
         var quotes = new Dictionary<string, BondQuote>(StringComparer.Ordinal);
         var problems = new List<JournalProblem>();
         long lastSeq = 0;
@@ -62,9 +66,9 @@ public static class JournalReplay
                         $"seq {record.Seq} follows seq {lastSeq}; lines are missing or out of order."));
                 }
                 lastSeq = record.Seq;
-                if (record.Trade is { } trade)
+                if (record.Trade is not null || record.Definition is not null)
                 {
-                    trades.Add(trade);
+                    changes.Add(record);
                 }
                 else if (record.Quote is { } quote
                     && (!quotes.TryGetValue(quote.InstrumentId, out var kept) || kept.QuoteTime <= quote.QuoteTime))
@@ -75,6 +79,6 @@ public static class JournalReplay
             offset += end + 1;
         }
         var complete = bytes.LastIndexOf((byte)'\n') + 1;
-        return new JournalContents(path, trades, quotes, problems, lastSeq, complete);
+        return new JournalContents(path, changes, quotes, problems, lastSeq, complete).WithDays([path]);
     }
 }

@@ -19,7 +19,7 @@ namespace Monitor.Service.Journal;
 public sealed class TradeJournal : IAsyncDisposable
 {
     private readonly string _folder;
-    private readonly TimeSpan _dayOffset;
+    private readonly BusinessDayRoll _roll;
     private readonly int _maxBatch;
     private readonly TimeProvider _time;
     private readonly Channel<Entry> _queue = Channel.CreateUnbounded<Entry>(new UnboundedChannelOptions { SingleReader = true });
@@ -38,7 +38,7 @@ public sealed class TradeJournal : IAsyncDisposable
     /// <summary>How long quotes of a failed batch wait for a retry when no other append comes.</summary>
     internal static readonly TimeSpan QuoteRetryDelay = TimeSpan.FromSeconds(1);
 
-    public TradeJournal(JournalOptions options, TimeProvider time)
+    public TradeJournal(JournalOptions options, TimeProvider time, BusinessDayRoll? roll = null)
     {
         ArgumentNullException.ThrowIfNull(options);
         ArgumentNullException.ThrowIfNull(time);
@@ -51,7 +51,7 @@ public sealed class TradeJournal : IAsyncDisposable
             throw new ArgumentException($"Journal:MaxBatch {options.MaxBatch} must be 1 or more.", nameof(options));
         }
         _folder = options.Folder;
-        _dayOffset = options.BusinessDayUtcOffset;
+        _roll = roll ?? BusinessDayRoll.UtcMidnight;
         _maxBatch = options.MaxBatch;
         _time = time;
         _loop = Task.Run(RunAsync);
@@ -178,7 +178,7 @@ public sealed class TradeJournal : IAsyncDisposable
     private void WriteBatch(List<Entry> batch)
     {
         var now = _time.GetUtcNow();
-        var path = JournalFiles.PathOf(_folder, JournalFiles.DayOf(now, _dayOffset));
+        var path = JournalFiles.PathOf(_folder, _roll.BusinessDateOf(now));
         var seq = _seq;
         var written = 0L;
         try

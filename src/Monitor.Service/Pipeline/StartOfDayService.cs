@@ -11,7 +11,7 @@ namespace Monitor.Service.Pipeline;
 
 /// <summary>
 /// Runs once the bus is up: builds the engine (instruments, positions, limits: a bad file stops the start; then
-/// today's trade journal replayed), reports what the replay did and logs and publishes its refit, then fits the opening curves from the opening quotes file when one is configured, publishing the result.
+/// every journal day since the start-of-day state replayed), reports what the replay did and logs and publishes its refit, then fits the opening curves from the opening quotes file when one is configured, publishing the result.
 /// </summary>
 public sealed partial class StartOfDayService(RiskPipeline pipeline, EngineRecovery recovery, IOptions<MonitorOptions> options, IOptions<ExposureLogOptions> log, ILogger<StartOfDayService> logger)
     : IHostedService
@@ -20,6 +20,10 @@ public sealed partial class StartOfDayService(RiskPipeline pipeline, EngineRecov
     {
         var (date, books, instruments) = await pipeline.ReadAsync(e => (e.ValuationDate, e.Books.Count, e.Instruments.Count), cancellationToken).ConfigureAwait(false);
         LogStarted(date, books, instruments);
+        if (recovery.StartOfDay is { } state)
+        {
+            LogStartOfDay(state.Reason, string.Join(", ", recovery.Journal.Days.Select(Path.GetFileName)));
+        }
         var replay = recovery.Result;
         if (replay.Applied + replay.Duplicates + replay.Superseded + replay.QuotesAccepted > 0 || recovery.Journal.Problems.Count > 0)
         {
@@ -56,7 +60,10 @@ public sealed partial class StartOfDayService(RiskPipeline pipeline, EngineRecov
     [LoggerMessage(Level = LogLevel.Information, Message = "Monitor started for valuation date {ValuationDate:yyyy-MM-dd}: {Books} books, {Instruments} instruments")]
     private partial void LogStarted(DateOnly valuationDate, int books, int instruments);
 
-    [LoggerMessage(Level = LogLevel.Warning, Message = "Recovered from today's trade journal: {Applied} trades applied, {Duplicates} duplicates, {Superseded} superseded, {Quotes} quotes kept, {Rejected} refused")]
+    [LoggerMessage(Level = LogLevel.Information, Message = "Start-of-day state: {Reason}; journal files replayed: {Days}")]
+    private partial void LogStartOfDay(string reason, string days);
+
+    [LoggerMessage(Level = LogLevel.Warning, Message = "Recovered from the trade journal: {Applied} trades applied, {Duplicates} duplicates, {Superseded} superseded, {Quotes} quotes kept, {Rejected} refused")]
     private partial void LogRecovered(int applied, int duplicates, int superseded, int quotes, int rejected);
 
     [LoggerMessage(Level = LogLevel.Warning, Message = "{Count} journalled trades had no trade-applied record (a crash between the journal and the log); written now with cause journal-replay")]

@@ -66,19 +66,34 @@ public sealed class ServiceUnderTest : IAsyncDisposable
     /// <param name="limitsFile">A limits file other than Data/limits.json.</param>
     /// <param name="logStream">Wraps each exposure-log day file's stream (to inject write failures).</param>
     /// <param name="root">A folder the caller keeps (to restart a service on the same log and journal); default a new temporary one.</param>
-    public static async Task<ServiceUnderTest> StartAsync(string? limitsFile = null, Func<Stream, Stream>? logStream = null, string? root = null)
+    /// <param name="now">The clock at start; default <see cref="TestMarket.Now"/>.</param>
+    /// <param name="settings">Configuration keys to add or replace (a null value removes the key).</param>
+    public static async Task<ServiceUnderTest> StartAsync(string? limitsFile = null, Func<Stream, Stream>? logStream = null, string? root = null,
+        DateTimeOffset? now = null, IReadOnlyDictionary<string, string?>? settings = null)
     {
         var folder = root is null ? new TempFolder() : null;
         var logFolder = Path.Combine(root ?? folder!.Path, "exposure-log");
-        var configuration = new ConfigurationBuilder().AddInMemoryCollection(Settings(logFolder, limitsFile)).Build();
-        var time = new FakeTimeProvider(TestMarket.Now);
+        var values = Settings(logFolder, limitsFile);
+        foreach (var (key, value) in settings ?? new Dictionary<string, string?>())
+        {
+            if (value is null)
+            {
+                values.Remove(key);
+            }
+            else
+            {
+                values[key] = value;
+            }
+        }
+        var configuration = new ConfigurationBuilder().AddInMemoryCollection(values).Build();
+        var time = new FakeTimeProvider(now ?? TestMarket.Now);
         var services = new ServiceCollection();
         services.AddLogging();
         services.AddSingleton<TimeProvider>(time);
         services.AddMonitorServiceCore(configuration, null, static (s, bus) => s.AddMassTransitTestHarness(bus));
         if (logStream is not null)
         {
-            services.AddSingleton(sp => new ExposureLogWriter(sp.GetRequiredService<IOptions<ExposureLogOptions>>().Value, sp.GetRequiredService<TimeProvider>(), logStream));
+            services.AddSingleton(sp => new ExposureLogWriter(sp.GetRequiredService<IOptions<ExposureLogOptions>>().Value, sp.GetRequiredService<TimeProvider>(), logStream, sp.GetRequiredService<Monitor.Service.Engine.BusinessDayRoll>()));
         }
         services.Configure<TestHarnessOptions>(o => o.TestInactivityTimeout = TimeSpan.FromSeconds(2));
         var provider = services.BuildServiceProvider(validateScopes: true);
@@ -141,7 +156,7 @@ public sealed class ServiceUnderTest : IAsyncDisposable
         Source = q.Source ?? "test",
     };
 
-    public static TradeBooked Trade(string id, int version, string action, string book, string instrument, double face) => new()
+    public static TradeBooked Trade(string id, int version, string action, string book, string instrument, double face, DateTimeOffset? tradeTime = null) => new()
     {
         TradeId = id,
         Version = version,
@@ -150,7 +165,7 @@ public sealed class ServiceUnderTest : IAsyncDisposable
         InstrumentId = instrument,
         FaceAmount = face,
         CleanPrice = 100,
-        TradeTime = TestMarket.Now.AddMinutes(-1),
+        TradeTime = tradeTime ?? TestMarket.Now.AddMinutes(-1),
     };
 
     /// <summary>Polls a condition every 10 ms, failing after 30 s so a broken pipeline cannot hang the run.</summary>
