@@ -8,7 +8,7 @@ namespace Monitor.Cli.Verbs;
 
 /// <summary>
 /// <c>monitor run [--config FILE]</c>: runs the service until Ctrl+C (or SIGTERM), which stops it cleanly and writes the
-/// day-end snapshot. Exit 0 after a clean stop, 2 when the configuration is refused (the reasons go to stderr).
+/// stop record (`stop-snapshot` per book, then `service-stopped`; the day's close is written only when the roll passes). Exit 0 after a clean stop, 2 when the configuration is refused (the reasons go to stderr).
 /// </summary>
 internal static class RunVerb
 {

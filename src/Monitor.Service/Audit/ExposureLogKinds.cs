@@ -24,8 +24,17 @@ public static class ExposureLogKinds
     /// <summary>A trade changed a book.</summary>
     public const string TradeApplied = "trade-applied";
 
-    /// <summary>End of the business day.</summary>
-    public const string DayEnd = "day-end";
+    /// <summary>A book's figures at the business day's close (the roll passing while the service runs), one per valued book.</summary>
+    public const string CloseSnapshot = "close-snapshot";
+
+    /// <summary>The business day closed: written once at the roll, after its close snapshots; what a checkpoint anchors.</summary>
+    public const string DayClosed = "day-closed";
+
+    /// <summary>A book's figures when the service stops (any time of day), one per valued book.</summary>
+    public const string StopSnapshot = "stop-snapshot";
+
+    /// <summary>The service stopped (intraday or not): written once, after its stop snapshots. Not a day's close.</summary>
+    public const string ServiceStopped = "service-stopped";
 
     /// <summary>Written by the writer itself: a torn last line (crash mid-write) was cut off at start.</summary>
     public const string LogRepaired = "log-repaired";

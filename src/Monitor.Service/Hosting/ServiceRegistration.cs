@@ -120,6 +120,8 @@ public static class ServiceRegistration
         services.AddHostedService<StartOfDayService>();
         services.AddHostedService<CurveRefitWorker>();
         services.AddHostedService<SnapshotWorker>();
+        // The day's close at the roll; checkpoints and retention hook in as IDayCloseListener singletons.
+        services.AddHostedService<DayCloseWorker>();
         services.AddHostedService<LimitsFileWatcher>();
         services.AddHealthChecks()
             .AddCheck<ExposureLogHealthCheck>("exposure-log")

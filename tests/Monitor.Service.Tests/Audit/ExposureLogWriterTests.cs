@@ -60,7 +60,7 @@ public class ExposureLogWriterTests
         var roll = new BusinessDayRoll(new TimeOnly(23, 0), TimeZoneInfo.FindSystemTimeZoneById("America/New_York"));
         using (var writer = new ExposureLogWriter(options, clock, roll))
         {
-            writer.Append(ExposureLogKinds.DayEnd, clock.Now, Cause(1), Figures(1));
+            writer.Append(ExposureLogKinds.DayClosed, clock.Now, Cause(1), Figures(1));
         }
 
         Assert.True(File.Exists(ExposureLogFiles.PathOf(folder.Path, Day1)));
@@ -119,7 +119,7 @@ public class ExposureLogWriterTests
         ExposureLogRecord last;
         using (var first = new ExposureLogWriter(Options(folder.Path), clock))
         {
-            last = first.Append(ExposureLogKinds.DayEnd, clock.GetUtcNow(), Cause(1), Figures(1));
+            last = first.Append(ExposureLogKinds.DayClosed, clock.GetUtcNow(), Cause(1), Figures(1));
         }
 
         clock.Advance(TimeSpan.FromDays(3)); // a weekend in between: the previous file is not yesterday's

@@ -68,8 +68,9 @@ public sealed class ServiceUnderTest : IAsyncDisposable
     /// <param name="root">A folder the caller keeps (to restart a service on the same log and journal); default a new temporary one.</param>
     /// <param name="now">The clock at start; default <see cref="TestMarket.Now"/>.</param>
     /// <param name="settings">Configuration keys to add or replace (a null value removes the key).</param>
+    /// <param name="services">Registrations added after the service's own (e.g. an IDayCloseListener).</param>
     public static async Task<ServiceUnderTest> StartAsync(string? limitsFile = null, Func<Stream, Stream>? logStream = null, string? root = null,
-        DateTimeOffset? now = null, IReadOnlyDictionary<string, string?>? settings = null)
+        DateTimeOffset? now = null, IReadOnlyDictionary<string, string?>? settings = null, Action<IServiceCollection>? services = null)
     {
         var folder = root is null ? new TempFolder() : null;
         var logFolder = Path.Combine(root ?? folder!.Path, "exposure-log");
@@ -87,16 +88,17 @@ public sealed class ServiceUnderTest : IAsyncDisposable
         }
         var configuration = new ConfigurationBuilder().AddInMemoryCollection(values).Build();
         var time = new FakeTimeProvider(now ?? TestMarket.Now);
-        var services = new ServiceCollection();
-        services.AddLogging();
-        services.AddSingleton<TimeProvider>(time);
-        services.AddMonitorServiceCore(configuration, null, static (s, bus) => s.AddMassTransitTestHarness(bus));
+        var collection = new ServiceCollection();
+        collection.AddLogging();
+        collection.AddSingleton<TimeProvider>(time);
+        collection.AddMonitorServiceCore(configuration, null, static (s, bus) => s.AddMassTransitTestHarness(bus));
+        services?.Invoke(collection);
         if (logStream is not null)
         {
-            services.AddSingleton(sp => new ExposureLogWriter(sp.GetRequiredService<IOptions<ExposureLogOptions>>().Value, sp.GetRequiredService<TimeProvider>(), logStream, sp.GetRequiredService<Monitor.Service.Engine.BusinessDayRoll>()));
+            collection.AddSingleton(sp => new ExposureLogWriter(sp.GetRequiredService<IOptions<ExposureLogOptions>>().Value, sp.GetRequiredService<TimeProvider>(), logStream, sp.GetRequiredService<Monitor.Service.Engine.BusinessDayRoll>()));
         }
-        services.Configure<TestHarnessOptions>(o => o.TestInactivityTimeout = TimeSpan.FromSeconds(2));
-        var provider = services.BuildServiceProvider(validateScopes: true);
+        collection.Configure<TestHarnessOptions>(o => o.TestInactivityTimeout = TimeSpan.FromSeconds(2));
+        var provider = collection.BuildServiceProvider(validateScopes: true);
         var service = new ServiceUnderTest(provider, folder, time, logFolder);
         await service.Harness.Start();
         return service;
@@ -143,6 +145,16 @@ public sealed class ServiceUnderTest : IAsyncDisposable
     public Task<EngineState> StateAsync() => Pipeline.ReadAsync(EngineState.Of);
 
     public ExposureLogVerification VerifyLog() => ExposureLogVerifier.VerifyFolder(LogFolder);
+
+    /// <summary>Every line of every exposure-log day file in <paramref name="logFolder"/>, oldest day first.</summary>
+    public static IReadOnlyList<string> LogLines(string logFolder) =>
+        Directory.Exists(logFolder)
+            ? [.. Directory.GetFiles(logFolder, "exposures-*.jsonl").Order(StringComparer.Ordinal).SelectMany(File.ReadAllLines)]
+            : [];
+
+    /// <summary>The log lines of one record kind.</summary>
+    public static IReadOnlyList<string> LogLines(string logFolder, string kind) =>
+        [.. LogLines(logFolder).Where(l => l.Contains($"\"kind\":\"{kind}\"", StringComparison.Ordinal))];
 
     public static BondQuoted ToMessage(BondQuote q) => new()
     {
