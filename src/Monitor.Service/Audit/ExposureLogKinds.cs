@@ -21,6 +21,9 @@ public static class ExposureLogKinds
     /// <summary>A curve fit failed the quality gate; the last good curve stays.</summary>
     public const string CurveRejected = "curve-rejected";
 
+    /// <summary>An instrument was defined or redefined by message: <c>instrumentId</c>, <c>previous</c> (null when new) and <c>definition</c>.</summary>
+    public const string InstrumentDefined = "instrument-defined";
+
     /// <summary>A trade changed a book.</summary>
     public const string TradeApplied = "trade-applied";
 

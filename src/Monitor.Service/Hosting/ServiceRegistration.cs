@@ -54,15 +54,18 @@ public static class ServiceRegistration
                 }
             });
         // One business-day roll (Monitor:BusinessDay) names the journal's and the log's day files and closes the day.
-        foreach (var retired in new[] { "ExposureLog:BusinessDayUtcOffset", "Journal:BusinessDayUtcOffset" })
+        services.AddSingleton(sp =>
         {
-            if (configuration[retired] is not null)
+            foreach (var retired in new[] { "ExposureLog:BusinessDayUtcOffset", "Journal:BusinessDayUtcOffset" })
             {
-                throw new OptionsValidationException(retired, typeof(BusinessDayOptions),
-                    [$"{retired}: no longer read; the business day is set once by Monitor:BusinessDay:RollTime and Monitor:BusinessDay:TimeZone (IANA). Remove the key."]);
+                if (configuration[retired] is not null)
+                {
+                    throw new OptionsValidationException(retired, typeof(BusinessDayOptions),
+                        [$"{retired}: no longer read; the business day is set once by Monitor:BusinessDay:RollTime and Monitor:BusinessDay:TimeZone (IANA). Remove the key."]);
+                }
             }
-        }
-        services.AddSingleton(sp => sp.GetRequiredService<IOptions<MonitorOptions>>().Value.BusinessDay.ToRoll());
+            return sp.GetRequiredService<IOptions<MonitorOptions>>().Value.BusinessDay.ToRoll();
+        });
         services.AddSingleton(sp => EngineRecovery.Start(
             EngineFactory.Create(sp.GetRequiredService<IOptions<MonitorOptions>>().Value, sp.GetRequiredService<TimeProvider>()),
             sp.GetRequiredService<IOptions<JournalOptions>>().Value,

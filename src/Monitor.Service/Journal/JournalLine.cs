@@ -10,7 +10,7 @@ namespace Monitor.Service.Journal;
 
 /// <summary>
 /// Writes and reads one line of the journal format MTJ-1 (see README.md in this folder): a JSON object
-/// <c>{"seq","kind","writtenTime","trade"|"quote","sha256"}</c> where <c>sha256</c> is the SHA-256 (FIPS 180-4)
+/// <c>{"seq","kind","writtenTime","trade"|"quote"|"instrument","sha256"}</c> where <c>sha256</c> is the SHA-256 (FIPS 180-4)
 /// of the line with the <c>,"sha256":"…"</c> member cut out. The hash is over bytes, so a reader never re-serialises.
 /// </summary>
 internal static class JournalLine
@@ -56,6 +56,15 @@ internal static class JournalLine
             w.WriteEndObject();
         });
 
+    /// <summary>An accepted instrument definition (kind <c>instrument</c>), journalled before it changes the engine.</summary>
+    public static byte[] Definition(long seq, DateTimeOffset writtenTime, Analytics.Instruments.Bond bond) =>
+        Build(seq, "instrument", writtenTime, w =>
+        {
+            w.WriteStartObject("instrument");
+            BondTerms.Write(w, bond);
+            w.WriteEndObject();
+        });
+
     /// <summary>Reads one line (without its LF). Returns null and a reason when the line cannot be used.</summary>
     public static JournalRecord? Parse(ReadOnlySpan<byte> line, out JournalProblemKind? problem, out string detail)
     {
@@ -95,9 +104,11 @@ internal static class JournalLine
                     var quote = new BondQuote(Text(q, "instrumentId"), ReadTime(q, "quoteTime"), Optional(q, "bid"), Optional(q, "ask"),
                         Optional(q, "mid"), Optional(q, "yield"), q.TryGetProperty("source", out var s) ? s.GetString() : null);
                     return new JournalRecord(seq, written, null, quote);
+                case "instrument":
+                    return new JournalRecord(seq, written, null, null, BondTerms.Read(root.GetProperty("instrument")));
                 default:
                     problem = JournalProblemKind.Unparsable;
-                    detail = $"kind '{kind}' is not 'trade' or 'quote'.";
+                    detail = $"kind '{kind}' is not 'trade', 'quote' or 'instrument'.";
                     return null;
             }
         }

@@ -5,4 +5,8 @@ using Monitor.Service.Engine;
 namespace Monitor.Service.Journal;
 
 /// <summary>One journal line read back: its sequence number and a trade, a quote or an instrument definition.</summary>
-public sealed record JournalRecord(long Seq, DateTimeOffset WrittenTime, TradeInput? Trade, BondQuote? Quote, Bond? Definition = null);
+public sealed record JournalRecord(long Seq, DateTimeOffset WrittenTime, TradeInput? Trade, BondQuote? Quote, Bond? Definition = null)
+{
+    /// <summary>The day file it was read from (file name), for messages.</summary>
+    public string File { get; init; } = string.Empty;
+}

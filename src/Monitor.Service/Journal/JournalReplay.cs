@@ -68,7 +68,7 @@ public static class JournalReplay
                 lastSeq = record.Seq;
                 if (record.Trade is not null || record.Definition is not null)
                 {
-                    changes.Add(record);
+                    changes.Add(record with { File = name });
                 }
                 else if (record.Quote is { } quote
                     && (!quotes.TryGetValue(quote.InstrumentId, out var kept) || kept.QuoteTime <= quote.QuoteTime))

@@ -100,6 +100,18 @@ public sealed class TradeJournal : IAsyncDisposable
         return new ValueTask(cancellationToken.CanBeCanceled ? done.Task.WaitAsync(cancellationToken) : done.Task);
     }
 
+    /// <summary>As <see cref="AppendTradeAsync"/> for an accepted instrument definition (line kind <c>instrument</c>).</summary>
+    public ValueTask AppendDefinitionAsync(Analytics.Instruments.Bond bond, CancellationToken cancellationToken = default)
+    {
+        ArgumentNullException.ThrowIfNull(bond);
+        var done = new TaskCompletionSource(TaskCreationOptions.RunContinuationsAsynchronously);
+        if (!_queue.Writer.TryWrite(new Entry(null, null, done) { Definition = bond }))
+        {
+            throw new ObjectDisposedException(nameof(TradeJournal));
+        }
+        return new ValueTask(cancellationToken.CanBeCanceled ? done.Task.WaitAsync(cancellationToken) : done.Task);
+    }
+
     /// <summary>
     /// Completes once everything queued before it is fsynced, quotes kept from a failed batch included; throws
     /// <see cref="JournalWriteException"/> when that write fails. Lets a quote consumer wait out a failing journal.
@@ -189,12 +201,14 @@ public sealed class TradeJournal : IAsyncDisposable
             foreach (var entry in batch)
             {
                 durable |= entry.Done is not null;
-                if (entry.Trade is null && entry.Quote is null)
+                if (entry.Trade is null && entry.Quote is null && entry.Definition is null)
                 {
                     continue; // a flush request: no line of its own
                 }
                 seq++;
-                var line = entry.Trade is { } trade ? JournalLine.Trade(seq, now, trade) : JournalLine.Quote(seq, now, entry.Quote!);
+                var line = entry.Trade is { } trade ? JournalLine.Trade(seq, now, trade)
+                    : entry.Definition is { } bond ? JournalLine.Definition(seq, now, bond)
+                    : JournalLine.Quote(seq, now, entry.Quote!);
                 _stream!.Write(line);
                 written += line.Length;
             }
@@ -276,5 +290,8 @@ public sealed class TradeJournal : IAsyncDisposable
         }
     }
 
-    private sealed record Entry(TradeInput? Trade, BondQuote? Quote, TaskCompletionSource? Done);
+    private sealed record Entry(TradeInput? Trade, BondQuote? Quote, TaskCompletionSource? Done)
+    {
+        public Analytics.Instruments.Bond? Definition { get; init; }
+    }
 }

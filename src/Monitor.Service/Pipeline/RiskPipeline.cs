@@ -71,11 +71,31 @@ public sealed partial class RiskPipeline
         }
     }
 
-    public async Task DefineInstrumentAsync(Bond bond, CancellationToken cancellationToken)
+    /// <summary>
+    /// Defines or redefines an instrument. A refusal throws before anything changes; an accepted definition that changes
+    /// anything is journalled (fsynced) and logged (<c>instrument-defined</c>, the old and the new definition) before
+    /// the engine takes it, so a restart replays it in order with the trades. One equal in every member changes nothing.
+    /// </summary>
+    public async Task DefineInstrumentAsync(Bond bond, Cause cause, CancellationToken cancellationToken)
     {
+        ArgumentNullException.ThrowIfNull(bond);
+        ArgumentNullException.ThrowIfNull(cause);
         await _gate.WaitAsync(cancellationToken).ConfigureAwait(false);
         try
         {
+            var previous = _engine.CheckDefinition(bond);
+            if (previous is not null && BondTerms.Same(previous, bond))
+            {
+                return;
+            }
+            await _storage.RunAsync(StorageFaultGate.TradeJournal, _ => _journal.AppendDefinitionAsync(bond, CancellationToken.None).AsTask(), cancellationToken).ConfigureAwait(false);
+            var payload = new Dictionary<string, object?>
+            {
+                ["instrumentId"] = bond.Id,
+                ["previous"] = previous is null ? null : new Dictionary<string, object?>(BondTerms.ToDictionary(previous)),
+                ["definition"] = new Dictionary<string, object?>(BondTerms.ToDictionary(bond)),
+            };
+            await _storage.RunAsync(StorageFaultGate.ExposureLog, () => _log.Append(ExposureLogKinds.InstrumentDefined, cause.EventTime, LogCause(cause), payload), cancellationToken).ConfigureAwait(false);
             _engine.DefineInstrument(bond);
         }
         finally

@@ -25,9 +25,13 @@ public sealed partial class StartOfDayService(RiskPipeline pipeline, EngineRecov
             LogStartOfDay(state.Reason, string.Join(", ", recovery.Journal.Days.Select(Path.GetFileName)));
         }
         var replay = recovery.Result;
-        if (replay.Applied + replay.Duplicates + replay.Superseded + replay.QuotesAccepted > 0 || recovery.Journal.Problems.Count > 0)
+        if (replay.Applied + replay.Duplicates + replay.Superseded + replay.Definitions + replay.QuotesAccepted > 0 || recovery.Journal.Problems.Count > 0)
         {
-            LogRecovered(replay.Applied, replay.Duplicates, replay.Superseded, replay.QuotesAccepted, replay.RejectedTrades.Count + replay.RejectedQuotes.Count);
+            LogRecovered(replay.Applied, replay.Duplicates, replay.Superseded, replay.Definitions, replay.QuotesAccepted, replay.RejectedQuotes.Count);
+        }
+        foreach (var refused in replay.RejectedQuotes)
+        {
+            LogQuoteNotReplayed(refused);
         }
         foreach (var problem in recovery.Journal.Problems)
         {
@@ -63,8 +67,11 @@ public sealed partial class StartOfDayService(RiskPipeline pipeline, EngineRecov
     [LoggerMessage(Level = LogLevel.Information, Message = "Start-of-day state: {Reason}; journal files replayed: {Days}")]
     private partial void LogStartOfDay(string reason, string days);
 
-    [LoggerMessage(Level = LogLevel.Warning, Message = "Recovered from the trade journal: {Applied} trades applied, {Duplicates} duplicates, {Superseded} superseded, {Quotes} quotes kept, {Rejected} refused")]
-    private partial void LogRecovered(int applied, int duplicates, int superseded, int quotes, int rejected);
+    [LoggerMessage(Level = LogLevel.Warning, Message = "Recovered from the trade journal: {Applied} trades applied, {Duplicates} duplicates, {Superseded} superseded, {Definitions} instrument definitions, {Quotes} quotes kept, {Rejected} quotes refused")]
+    private partial void LogRecovered(int applied, int duplicates, int superseded, int definitions, int quotes, int rejected);
+
+    [LoggerMessage(Level = LogLevel.Warning, Message = "Journalled quote not replayed: {Refusal}")]
+    private partial void LogQuoteNotReplayed(string refusal);
 
     [LoggerMessage(Level = LogLevel.Warning, Message = "{Count} journalled trades had no trade-applied record (a crash between the journal and the log); written now with cause journal-replay")]
     private partial void LogAuditRestored(int count);
