@@ -153,7 +153,8 @@ public sealed partial class ExposureLogWriter : IDisposable
                 for (var i = batch.Written; i < batch.Count; i++)
                 {
                     var (kind, eventTime, cause, payload) = batch[i];
-                    Write(kind, eventTime, cause, payload);
+                    var record = Write(kind, eventTime, cause, payload);
+                    batch.AddWritten(record.Seq, record.Hash);
                     batch.Written = i + 1;
                 }
 

@@ -78,6 +78,12 @@ public static class ServiceRegistration
         // Every exposure log and journal append of the pipeline runs through the gate: a storage failure stalls, never faults a message.
         services.AddSingleton<StorageFaultGate>();
         services.AddSingleton<QuoteInbox>();
+        // Events with a log record wait in <ExposureLog:Folder>-outbox until the broker confirms them.
+        services.AddSingleton(sp =>
+        {
+            var log = sp.GetRequiredService<IOptions<ExposureLogOptions>>().Value;
+            return new OutboxFile(log.Folder.TrimEnd('/', '\\') + "-outbox", log.FlushToDisk);
+        });
         services.AddSingleton<EventOutbox>();
         services.AddSingleton<RiskPipeline>();
 

@@ -414,8 +414,15 @@ public sealed partial class RiskPipeline
         }
         _metrics.QueueLag.Record((now - cause.EventTime).TotalMilliseconds);
         // Published by the outbox, in order, outside this lock: 1,000 book events awaited here held every quote and
-        // trade behind the broker's round trips (measured with `monitor load`).
-        await _outbox.EnqueueAsync(messages, books, cancellationToken).ConfigureAwait(false);
+        // trade behind the broker's round trips (measured with `monitor load`). Each event has one record of the batch,
+        // in the same order: its seq and hash give the event's stable id, and the outbox keeps it until confirmed.
+        var recorded = new OutboxEntry[messages.Count];
+        for (var i = 0; i < messages.Count; i++)
+        {
+            var (seq, hash) = batch.Records[i];
+            recorded[i] = new OutboxEntry(seq, OutboxEntry.IdOf(seq, hash), messages[i]);
+        }
+        await _outbox.EnqueueRecordedAsync(recorded, books, keep => _storage.RunAsync(StorageFaultGate.ExposureLog, keep, cancellationToken), cancellationToken).ConfigureAwait(false);
     }
 
     /// <summary>
