@@ -51,11 +51,11 @@ internal static class BondVerb
         {
             var settle = CommonOptions.ParseDate("--settlement-date", parse.GetValue(settlement))!.Value;
             var bond = parse.GetValue(instruments) is { } path
-                ? FromFile(path, parse.GetValue(id) ?? throw CliInputException.Option("--id", null, "is missing: it wants the id of the bond in " + path + "."))
+                ? FromFile(path, parse.GetValue(id) ?? throw CliInputException.Missing("--id", "the id of the bond in " + path + "."))
                 : FromOptions(
                     parse.GetValue(id) ?? "bond",
-                    parse.GetValue(coupon) ?? throw CliInputException.Option("--coupon-pct", null, "is missing: it wants the annual coupon in percent (or give --instruments and --id)."),
-                    CommonOptions.ParseDate("--maturity-date", parse.GetValue(maturity)) ?? throw CliInputException.Option("--maturity-date", null, "is missing: it wants the maturity date YYYY-MM-DD (or give --instruments and --id)."),
+                    parse.GetValue(coupon) ?? throw CliInputException.Missing("--coupon-pct", "the annual coupon in percent (or give --instruments and --id)."),
+                    CommonOptions.ParseDate("--maturity-date", parse.GetValue(maturity)) ?? throw CliInputException.Missing("--maturity-date", "the maturity date YYYY-MM-DD (or give --instruments and --id)."),
                     parse.GetValue(frequency),
                     parse.GetValue(dayCount)!,
                     CommonOptions.ParseDate("--issue-date", parse.GetValue(issue)),
@@ -79,8 +79,9 @@ internal static class BondVerb
     {
         if (yieldPct.HasValue == cleanPrice.HasValue)
         {
-            throw CliInputException.Option(yieldPct.HasValue ? "--from-price" : "--from-yield", null,
-                yieldPct.HasValue ? "cannot be given with --from-yield: give one of them." : "is missing: it wants the yield in percent (or give --from-price, the clean price per 100).");
+            throw yieldPct.HasValue
+                ? CliInputException.Option("--from-price", Inv(cleanPrice!.Value), "cannot be given with --from-yield: give one of them.")
+                : CliInputException.Missing("--from-yield", "the yield in percent (or give --from-price, the clean price per 100).");
         }
         if (settlement < bond.IssueDate || settlement >= bond.MaturityDate)
         {

@@ -18,7 +18,7 @@ internal static class CommonOptions
 
     /// <summary>
     /// Every option of <paramref name="command"/> whose help starts with <see cref="RequiredMark"/> must be given; a
-    /// missing one fails with "--name is missing: it wants &lt;its help&gt;" (exit 1). System.CommandLine's own
+    /// missing one fails with "--name is required and missing; it wants: &lt;its help&gt;" (exit 1). System.CommandLine's own
     /// "Option '--x' is required." names the option but not what it wants.
     /// </summary>
     public static void CheckRequired(Command command)

@@ -37,7 +37,7 @@ internal static class CurveVerb
             var (b3, t2) = (parse.GetValue(beta3), parse.GetValue(tau2));
             if (b3.HasValue != t2.HasValue)
             {
-                throw CliInputException.Option(b3.HasValue ? "--tau2" : "--beta3", null, "is missing: a Svensson curve wants both --beta3 (percent) and --tau2 (years); give neither for Nelson-Siegel.");
+                throw CliInputException.Missing(b3.HasValue ? "--tau2" : "--beta3", "a Svensson curve takes both --beta3 (percent) and --tau2 (years); give neither for Nelson-Siegel.");
             }
             var view = Evaluate(
                 parse.GetValue(beta0)!.Value, parse.GetValue(beta1)!.Value, parse.GetValue(beta2)!.Value, b3, parse.GetValue(tau1)!.Value, t2,

@@ -42,8 +42,8 @@ internal static class FitVerb
             var views = parse.GetValue(parYields) is { } parPath
                 ? FitParYields(parPath, CommonOptions.ParseDate("--as-of", parse.GetValue(asOf)), curveModel, parGate.Read(parse), parse.GetValue(quotes), years)
                 : FitQuotes(
-                    parse.GetValue(instruments) ?? throw CliInputException.Option("--instruments", null, "is missing: it wants the instruments file (config/examples/README.md), or give --par-yields."),
-                    parse.GetValue(quotes) ?? throw CliInputException.Option("--quotes", null, "is missing: it wants the quotes file (config/examples/README.md), or give --par-yields."),
+                    parse.GetValue(instruments) ?? throw CliInputException.Missing("--instruments", "the instruments file (config/examples/README.md), or give --par-yields."),
+                    parse.GetValue(quotes) ?? throw CliInputException.Missing("--quotes", "the quotes file (config/examples/README.md), or give --par-yields."),
                     CommonOptions.ParseDate("--valuation-date", parse.GetValue(valuationDate)),
                     parse.GetValue(spreadGroup),
                     curveModel,

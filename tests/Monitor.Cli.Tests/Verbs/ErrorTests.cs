@@ -73,7 +73,7 @@ public class ErrorTests
         var (exit, _, error) = CliRun.Invoke("fit", "--instruments", CliRun.Data("instruments.csv"));
 
         Assert.Equal(1, exit);
-        Assert.Contains("--quotes", error, StringComparison.Ordinal);
+        Assert.Contains("--quotes is required and missing; it wants: the quotes file", error, StringComparison.Ordinal);
     }
 
     [Fact]
