@@ -44,9 +44,9 @@ internal sealed class DemoScenario
     /// <summary>The day's trades in time order.</summary>
     public static IReadOnlyList<ScenarioTrade> Trades { get; } =
     [
-        new(new TimeSpan(9, 35, 0), "ALD-0001", "RATES-CORE", "VGB-2034-11", 12_000_000, "RATES-CORE adds 10y duration into the open"),
-        new(new TimeSpan(11, 5, 0), "ALD-0002", "CREDIT-IG", "KWS-2030-09", 9_000_000, "CREDIT-IG buys the INDUSTRIAL-BBB dip"),
-        new(new TimeSpan(13, 15, 0), "ALD-0003", "RATES-CURVE", "VGB-2051-11", 30_000_000, "RATES-CURVE: large long-end buy"),
-        new(new TimeSpan(14, 45, 0), "ALD-0004", "RATES-CURVE", "VGB-2051-11", -26_000_000, "RATES-CURVE cuts the long-end position"),
+        new(new TimeSpan(9, 35, 0), "PLM-0001", "RATES-CORE", "VGB-2034-11", 12_000_000, "RATES-CORE adds 10y duration into the open"),
+        new(new TimeSpan(11, 5, 0), "PLM-0002", "CREDIT-IG", "KWS-2030-09", 9_000_000, "CREDIT-IG buys the INDUSTRIAL-BBB dip"),
+        new(new TimeSpan(13, 15, 0), "PLM-0003", "RATES-CURVE", "VGB-2051-11", 30_000_000, "RATES-CURVE: large long-end buy"),
+        new(new TimeSpan(14, 45, 0), "PLM-0004", "RATES-CURVE", "VGB-2051-11", -26_000_000, "RATES-CURVE cuts the long-end position"),
     ];
 }
