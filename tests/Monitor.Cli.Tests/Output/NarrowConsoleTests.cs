@@ -66,7 +66,7 @@ public partial class NarrowConsoleTests
         Assert.NotNull(curves);
         var document = RiskVerb.Compute(
             BookPositions.Load(CliRun.Data("positions.csv"), Monitor.Files.InstrumentFile.Read(CliRun.Data("instruments.csv")).ToDictionary(b => b.Id, StringComparer.Ordinal)),
-            curves.Fit(Monitor.Analytics.Fitting.CurveModel.NelsonSiegel, new(5, 25, 6), new(15, 60, 4), ["INDU-BBB", "UTIL-A"]),
+            curves.Fit(Monitor.Analytics.Fitting.CurveModel.NelsonSiegel, new(5, 25, 6), new(15, 60, 4), ["INDUSTRIAL-BBB", "UTIL-A"]),
             withPositions: false);
         RiskTables.Write(TableConsole.Create(writer, 80), document);
 
