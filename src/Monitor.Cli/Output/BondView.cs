@@ -7,7 +7,7 @@ namespace Monitor.Cli.Output;
 /// </summary>
 internal sealed record BondView(
     string Id,
-    string CouponPct,
+    double CouponPct,
     string MaturityDate,
     int Frequency,
     string DayCount,

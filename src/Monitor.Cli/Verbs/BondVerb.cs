@@ -110,7 +110,7 @@ internal static class BondVerb
             throw CliInputException.Option("--from-yield", Inv(yieldPct ?? 100 * yield), ex.Message.Split(" (Parameter", 2)[0]);
         }
         return new BondView(
-            bond.Id, Inv((double)(bond.CouponRate * 100)), Num.Date(bond.MaturityDate), bond.Frequency, DayCounters.Name(bond.DayCount),
+            bond.Id, (double)(bond.CouponRate * 100), Num.Date(bond.MaturityDate), bond.Frequency, DayCounters.Name(bond.DayCount),
             Num.Date(bond.IssueDate), Num.Date(settlement), Name(convention), yieldPct.HasValue ? "yield" : "price",
             100 * m.Yield, m.CleanPrice, m.AccruedInterest, m.DirtyPrice, m.MacaulayDuration, m.ModifiedDuration, m.Convexity, m.Dv01);
     }

@@ -14,7 +14,7 @@ namespace Monitor.Cli.Tests.Verbs;
 /// </summary>
 public class SpellingConventionTests
 {
-    private static readonly string[] OtherModelSpellings = ["NelsonSiegel", "nelsonSiegel", "Nelson-Siegel,", "nelson_siegel"];
+    private static readonly string[] OtherModelSpellings = ["NelsonSiegel", "nelsonSiegel", "nelson_siegel", "Nelson Siegel"];
 
     private static string Help(string verb)
     {
