@@ -27,7 +27,7 @@ internal static class FitVerb
         var baseGate = GateOptions.ForBase();
         var spreadGate = GateOptions.ForSpread();
         var parGate = GateOptions.ForParYields();
-        var command = new Command("fit", "Fit the government curve (and a spread curve) to bond quotes, or a curve to par yields; print parameters, fit report, residuals in bp, quotes left out and the quality-gate verdict. Exit 4 when a curve fails its gate.");
+        var command = new Command("fit", "Fit the government curve (and a spread curve) to bond quotes, or a curve to par yields; print parameters, fit report, the curve at --tenors with its year basis, residuals in bp, quotes left out and the quality-gate verdict. Exit 4 when a curve fails its gate.");
         foreach (var option in new Option[] { instruments, quotes, model, valuationDate, spreadGroup, parYields, asOf, tenors, stale, json })
         {
             command.Options.Add(option);
