@@ -69,6 +69,7 @@ public static class ServiceRegistration
         var transport = configuration.GetSection(TransportOptions.SectionName).Get<TransportOptions>() ?? new TransportOptions();
         addBus(services, bus =>
         {
+            UsageReportingOff.Apply(bus);
             InboundEndpoints.AddConsumers(bus);
             extraConsumers?.Invoke(bus);
             if (transport.Kind == TransportKind.RabbitMq)
