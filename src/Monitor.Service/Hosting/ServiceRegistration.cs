@@ -77,6 +77,7 @@ public static class ServiceRegistration
                 bus.UsingRabbitMq((context, cfg) =>
                 {
                     BrokerConnection.Configure(cfg, transport.Broker);
+                    ErrorQueueLimits.Configure(cfg, transport);
                     InboundEndpoints.Configure(context, cfg, transport);
                     cfg.ConfigureEndpoints(context);
                 });
