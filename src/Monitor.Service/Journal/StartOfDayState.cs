@@ -49,6 +49,9 @@ public sealed record StartOfDayState(DateOnly BusinessDate, string? PositionsSha
         return fresh;
     }
 
+    /// <summary>The stored business date the replay starts from; null when there is none. Throws like <see cref="Resolve"/> when unreadable.</summary>
+    public static DateOnly? StoredDate(string journalFolder) => Read(Path.Combine(journalFolder, FileName))?.BusinessDate;
+
     private static StartOfDayState? Read(string path)
     {
         if (!File.Exists(path))

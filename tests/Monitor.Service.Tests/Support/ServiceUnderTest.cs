@@ -33,7 +33,7 @@ public sealed class ServiceUnderTest : IAsyncDisposable
         Time = time;
         LogFolder = logFolder;
         // The pipeline first: the container disposes in reverse order, and the harness stops the hosted services
-        // (the day-end snapshot needs the pipeline) when it is disposed.
+        // (the stop record needs the pipeline) when it is disposed.
         Pipeline = provider.GetRequiredService<RiskPipeline>();
         Harness = provider.GetRequiredService<ITestHarness>();
     }
