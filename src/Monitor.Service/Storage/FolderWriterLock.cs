@@ -59,11 +59,18 @@ public sealed class FolderWriterLock : IDisposable
             throw new FolderInUseException(full, $"The {role} folder's lock file '{path}' cannot be opened ({ex.Message}); the service needs to create and lock it.", ex);
         }
 
-        var holder = Encoding.UTF8.GetBytes(HolderText());
-        stream.SetLength(0);
-        stream.Write(holder);
-        stream.Flush(flushToDisk: true);
-        File.WriteAllBytes(Path.Combine(full, HolderFileName), holder);
+        try
+        {
+            var holder = Encoding.UTF8.GetBytes(HolderText());
+            stream.SetLength(0);
+            stream.Write(holder);
+            stream.Flush(flushToDisk: true);
+            File.WriteAllBytes(Path.Combine(full, HolderFileName), holder);
+        }
+        catch (IOException)
+        {
+            // Only the lock counts; a full disk that refuses the holder's note is reported by the first real write.
+        }
         return new FolderWriterLock(full, stream);
     }
 
