@@ -116,14 +116,14 @@ public class FitVerbTests
     [Fact]
     public void Spread_group_fit_sits_on_the_government_curve()
     {
-        var (exit, output, error) = CliRun.Invoke("fit", "--instruments", Instruments, "--quotes", CliRun.Data("quotes-close.csv"), "--spread-group", "INDU-BBB", "--json");
+        var (exit, output, error) = CliRun.Invoke("fit", "--instruments", Instruments, "--quotes", CliRun.Data("quotes-close.csv"), "--spread-group", "INDUSTRIAL-BBB", "--json");
 
         Assert.True(exit == 0, error);
         using var json = JsonDocument.Parse(output);
         var curves = json.RootElement.GetProperty("curves");
         Assert.Equal(2, curves.GetArrayLength());
         var spread = curves[1];
-        Assert.Equal("INDU-BBB", spread.GetProperty("curve").GetString());
+        Assert.Equal("INDUSTRIAL-BBB", spread.GetProperty("curve").GetString());
         Assert.Equal("spread", spread.GetProperty("kind").GetString());
         Assert.Equal(4, spread.GetProperty("usedCount").GetInt32());
         Assert.Contains("g0", spread.GetProperty("parameters").EnumerateObject().Select(p => p.Name));
