@@ -33,6 +33,9 @@ public static class ServiceRegistration
         ArgumentNullException.ThrowIfNull(configuration);
         ArgumentNullException.ThrowIfNull(addBus);
         services.TryAddTimeProvider();
+        // First of the hosted services, so it stops last: the health file says Stopped only once everything else has stopped.
+        services.AddSingleton<HealthStatusFilePublisher>();
+        services.AddHostedService(sp => sp.GetRequiredService<HealthStatusFilePublisher>());
         services.AddOptions<MonitorOptions>().Bind(configuration.GetSection(MonitorOptions.SectionName)).ValidateOnStart();
         services.AddSingleton<IValidateOptions<MonitorOptions>, MonitorOptionsValidator>();
         services.AddOptions<TransportOptions>().Bind(configuration.GetSection(TransportOptions.SectionName)).ValidateOnStart();
@@ -69,15 +72,17 @@ public static class ServiceRegistration
             return sp.GetRequiredService<IOptions<MonitorOptions>>().Value.BusinessDay.ToRoll();
         });
         AddRetention(services, configuration);
-        services.AddSingleton(sp => EngineRecovery.Start(
+        // One writer per folder: taken before the journal is replayed or either folder written, held until disposal.
+        services.AddSingleton(sp => new WriterLocks(sp.GetRequiredService<IOptions<ExposureLogOptions>>().Value.Folder, sp.GetRequiredService<IOptions<JournalOptions>>().Value.Folder));
+        services.AddSingleton(sp => AfterWriterLocks(sp, () => EngineRecovery.Start(
             EngineFactory.Create(sp.GetRequiredService<IOptions<MonitorOptions>>().Value, sp.GetRequiredService<TimeProvider>()),
             sp.GetRequiredService<IOptions<JournalOptions>>().Value,
             sp.GetRequiredService<BusinessDayRoll>(),
             sp.GetRequiredService<IOptions<MonitorOptions>>().Value.PositionsFile,
-            sp.GetRequiredService<TimeProvider>().GetUtcNow()));
+            sp.GetRequiredService<TimeProvider>().GetUtcNow())));
         services.AddSingleton(sp => sp.GetRequiredService<EngineRecovery>().Engine);
-        services.AddSingleton(sp => new TradeJournal(sp.GetRequiredService<IOptions<JournalOptions>>().Value, sp.GetRequiredService<TimeProvider>(), sp.GetRequiredService<BusinessDayRoll>()));
-        services.AddSingleton(sp => new ExposureLogWriter(sp.GetRequiredService<IOptions<ExposureLogOptions>>().Value, sp.GetRequiredService<TimeProvider>(), sp.GetRequiredService<BusinessDayRoll>()));
+        services.AddSingleton(sp => AfterWriterLocks(sp, () => new TradeJournal(sp.GetRequiredService<IOptions<JournalOptions>>().Value, sp.GetRequiredService<TimeProvider>(), sp.GetRequiredService<BusinessDayRoll>())));
+        services.AddSingleton(sp => AfterWriterLocks(sp, () => new ExposureLogWriter(sp.GetRequiredService<IOptions<ExposureLogOptions>>().Value, sp.GetRequiredService<TimeProvider>(), sp.GetRequiredService<BusinessDayRoll>())));
         // Every exposure log and journal append of the pipeline runs through the gate: a storage failure stalls, never faults a message.
         services.AddSingleton<StorageFaultGate>();
         services.AddSingleton<QuoteInbox>();
@@ -89,6 +94,7 @@ public static class ServiceRegistration
         });
         services.AddSingleton<EventOutbox>();
         services.AddSingleton<RiskPipeline>();
+        services.AddSingleton<LimitsFileStatus>();
 
         var transport = configuration.GetSection(TransportOptions.SectionName).Get<TransportOptions>() ?? new TransportOptions();
         addBus(services, bus =>
@@ -138,15 +144,17 @@ public static class ServiceRegistration
         // The day's close at the roll; checkpoints and retention hook in as IDayCloseListener singletons.
         services.AddHostedService<DayCloseWorker>();
         services.AddHostedService<LimitsFileWatcher>();
+        services.AddHostedService<LimitExpiryWorker>();
         services.AddHealthChecks()
             .AddCheck<ExposureLogHealthCheck>("exposure-log")
             .AddCheck<CurveHealthCheck>("curves")
             .AddCheck<JournalHealthCheck>("trade-journal")
             .AddCheck<EventOutboxHealthCheck>("event-outbox")
             .AddCheck<BusConnectionHealthCheck>(BusHealthCheckName)
-            .AddCheck<StorageHealthCheck>("storage");
+            .AddCheck<StorageHealthCheck>("storage")
+            .AddCheck<LimitsHealthCheck>("limits");
         // No HTTP endpoint: the reports are logged on each status change and written to Health:StatusFile when set.
-        services.AddSingleton<IHealthCheckPublisher, HealthStatusFilePublisher>();
+        services.AddSingleton<IHealthCheckPublisher>(sp => sp.GetRequiredService<HealthStatusFilePublisher>());
         services.AddOptions<HealthCheckPublisherOptions>().Configure<IOptions<HealthOptions>>((publisher, health) =>
         {
             publisher.Delay = TimeSpan.FromSeconds(1);
@@ -177,6 +185,13 @@ public static class ServiceRegistration
             sp.GetRequiredService<IOptions<JournalOptions>>().Value.Folder,
             sp.GetRequiredService<IClosedDays>(),
             sp.GetRequiredService<ILogger<DayFileRetention>>()));
+    }
+
+    /// <summary>Builds a service that reads or writes the log or journal folders only once their writer locks are held.</summary>
+    private static T AfterWriterLocks<T>(IServiceProvider services, Func<T> create)
+    {
+        _ = services.GetRequiredService<WriterLocks>();
+        return create();
     }
 
     private static void TryAddTimeProvider(this IServiceCollection services)

@@ -18,8 +18,12 @@ public sealed partial class StartOfDayService(RiskPipeline pipeline, EngineRecov
 {
     public async Task StartAsync(CancellationToken cancellationToken)
     {
-        var (date, books, instruments) = await pipeline.ReadAsync(e => (e.ValuationDate, e.Books.Count, e.Instruments.Count), cancellationToken).ConfigureAwait(false);
+        var (date, books, instruments, limits) = await pipeline.ReadAsync(e => (e.ValuationDate, e.Books.Count, e.Instruments.Count, e.Limits.Limits.Count), cancellationToken).ConfigureAwait(false);
         LogStarted(date, books, instruments);
+        if (limits == 0)
+        {
+            LogNoLimits(options.Value.LimitsFile);
+        }
         if (recovery.StartOfDay is { } state)
         {
             LogStartOfDay(state.Reason, string.Join(", ", recovery.Journal.Days.Select(Path.GetFileName)));
@@ -72,6 +76,9 @@ public sealed partial class StartOfDayService(RiskPipeline pipeline, EngineRecov
 
     [LoggerMessage(Level = LogLevel.Warning, Message = "Journalled quote not replayed: {Refusal}")]
     private partial void LogQuoteNotReplayed(string refusal);
+
+    [LoggerMessage(Level = LogLevel.Warning, Message = "The limits file {Path} lists no limits: no book, desk or firm is judged until limits are given")]
+    private partial void LogNoLimits(string path);
 
     [LoggerMessage(Level = LogLevel.Warning, Message = "{Count} journalled trades had no trade-applied record (a crash between the journal and the log); written now with cause journal-replay")]
     private partial void LogAuditRestored(int count);

@@ -40,7 +40,8 @@ public class DurableOutboxTests
             var expected = EventIds(first.LogFolder);
             Assert.NotEmpty(expected);
             Assert.Empty(recorder.Published);
-            // Killed: the first process never stops, its outbox never drains.
+            // Killed: the first process never stops and its outbox never drains; the operating system frees its folder locks.
+            first.Services.GetRequiredService<Monitor.Service.Storage.WriterLocks>().Dispose();
 
             await using var second = await ServiceUnderTest.StartAsync(root: root.Path);
             await ServiceUnderTest.WaitUntilAsync(() => expected.Keys.All(PublishedIds(second).Contains), "the waiting events published again");

@@ -97,7 +97,9 @@ public sealed class ServiceUnderTest : IAsyncDisposable
         {
             collection.AddSingleton(sp => new ExposureLogWriter(sp.GetRequiredService<IOptions<ExposureLogOptions>>().Value, sp.GetRequiredService<TimeProvider>(), logStream, sp.GetRequiredService<Monitor.Service.Engine.BusinessDayRoll>()));
         }
-        collection.Configure<TestHarnessOptions>(o => o.TestInactivityTimeout = TimeSpan.FromSeconds(2));
+        // TestTimeout: past it the harness cancels its token and the stop (stop record) fails; tests that wait on the
+        // limits file's polling watcher run longer than the 30 s default on a loaded machine.
+        collection.Configure<TestHarnessOptions>(o => (o.TestInactivityTimeout, o.TestTimeout) = (TimeSpan.FromSeconds(2), TimeSpan.FromMinutes(2)));
         var provider = collection.BuildServiceProvider(validateScopes: true);
         var service = new ServiceUnderTest(provider, folder, time, logFolder);
         await service.Harness.Start();
