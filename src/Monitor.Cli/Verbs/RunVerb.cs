@@ -8,7 +8,7 @@ namespace Monitor.Cli.Verbs;
 
 /// <summary>
 /// <c>monitor run [--config FILE]</c>: runs the service until Ctrl+C (or SIGTERM), which stops it cleanly and writes the
-/// day-end snapshot. Exit 0 after a clean stop, 2 when the configuration is refused (the reasons go to stderr).
+/// day-end snapshot. Exit 0 after a clean stop, 2 when the configuration is refused or the journal or exposure log fails its check at start (the reasons go to stderr).
 /// </summary>
 internal static class RunVerb
 {
@@ -56,6 +56,12 @@ internal static class RunVerb
             }
             catch (Exception ex)
             {
+                if (StartupFailure.RefusedRecord(ex) is { } refused)
+                {
+                    // A journal line failing its check, books that disagree with the log, a log whose end fails its MAC.
+                    await error.WriteLineAsync($"monitor run: the start was stopped: {refused.Message}").ConfigureAwait(false);
+                    return ConfigurationRefused;
+                }
                 var problems = StartupFailure.ConfigurationProblems(ex, configuration);
                 if (problems.Count == 0)
                 {

@@ -1,3 +1,4 @@
+using Monitor.Cli.Tests.Support;
 using Monitor.Cli.Demo;
 using Monitor.Service.Audit;
 
@@ -42,7 +43,7 @@ public sealed class DemoRunTests(DemoRunFixture run) : IClassFixture<DemoRunFixt
     {
         Assert.True(run.Outcome.Verification.Intact);
         // Checked again here, independently of the demo's own check.
-        var again = ExposureLogVerifier.VerifyFolder(run.Outcome.ExposureLogFolder);
+        var again = ExposureLogVerifier.VerifyFolder(TestKey.Value, run.Outcome.ExposureLogFolder);
         Assert.True(again.Intact, string.Join("; ", again.Problems.Select(p => p.Detail)));
         Assert.True(again.Records > 0);
         Assert.Contains("verify-log", run.Output, StringComparison.Ordinal);

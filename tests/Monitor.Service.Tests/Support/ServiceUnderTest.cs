@@ -61,6 +61,8 @@ public sealed class ServiceUnderTest : IAsyncDisposable
         ["Monitor:BookEventInterval"] = "00:00:00",
         ["ExposureLog:Folder"] = logFolder,
         ["ExposureLog:FlushToDisk"] = "false",
+        // The record key in a file beside (never inside) the log folder.
+        ["Record:KeyFile"] = TestKey.FileIn(Path.GetDirectoryName(Path.GetFullPath(logFolder))!),
     };
 
     /// <param name="limitsFile">A limits file other than Data/limits.json.</param>
@@ -78,7 +80,7 @@ public sealed class ServiceUnderTest : IAsyncDisposable
         services.AddMonitorServiceCore(configuration, null, static (s, bus) => s.AddMassTransitTestHarness(bus));
         if (logStream is not null)
         {
-            services.AddSingleton(sp => new ExposureLogWriter(sp.GetRequiredService<IOptions<ExposureLogOptions>>().Value, sp.GetRequiredService<TimeProvider>(), logStream));
+            services.AddSingleton(sp => new ExposureLogWriter(TestKey.Value, sp.GetRequiredService<IOptions<ExposureLogOptions>>().Value, sp.GetRequiredService<TimeProvider>(), logStream));
         }
         services.Configure<TestHarnessOptions>(o => o.TestInactivityTimeout = TimeSpan.FromSeconds(2));
         var provider = services.BuildServiceProvider(validateScopes: true);
@@ -127,7 +129,7 @@ public sealed class ServiceUnderTest : IAsyncDisposable
 
     public Task<EngineState> StateAsync() => Pipeline.ReadAsync(EngineState.Of);
 
-    public ExposureLogVerification VerifyLog() => ExposureLogVerifier.VerifyFolder(LogFolder);
+    public ExposureLogVerification VerifyLog() => ExposureLogVerifier.VerifyFolder(TestKey.Value, LogFolder);
 
     public static BondQuoted ToMessage(BondQuote q) => new()
     {
