@@ -28,7 +28,7 @@ internal static class VerifyLogVerb
         command.Options.Add(json);
         command.SetAction(parse => Run(
             parse.GetValue(folder)!, parse.GetValue(day), parse.GetValue(keyFile), parse.GetValue(checkpoints), parse.GetValue(json),
-            Console.Out, Console.Error, Environment.GetEnvironmentVariable));
+            parse.InvocationConfiguration.Output, parse.InvocationConfiguration.Error, Environment.GetEnvironmentVariable));
         return command;
     }
 

@@ -68,11 +68,17 @@ public sealed class ServiceUnderTest : IAsyncDisposable
     /// <param name="limitsFile">A limits file other than Data/limits.json.</param>
     /// <param name="logStream">Wraps each exposure-log day file's stream (to inject write failures).</param>
     /// <param name="root">A folder the caller keeps (to restart a service on the same log and journal); default a new temporary one.</param>
-    public static async Task<ServiceUnderTest> StartAsync(string? limitsFile = null, Func<Stream, Stream>? logStream = null, string? root = null)
+    /// <param name="extra">Settings added to (or replacing) the defaults, e.g. <c>Journal:AcceptLoss</c>.</param>
+    public static async Task<ServiceUnderTest> StartAsync(string? limitsFile = null, Func<Stream, Stream>? logStream = null, string? root = null, IReadOnlyDictionary<string, string?>? extra = null)
     {
         var folder = root is null ? new TempFolder() : null;
         var logFolder = Path.Combine(root ?? folder!.Path, "exposure-log");
-        var configuration = new ConfigurationBuilder().AddInMemoryCollection(Settings(logFolder, limitsFile)).Build();
+        var settings = Settings(logFolder, limitsFile);
+        foreach (var (name, value) in extra ?? new Dictionary<string, string?>())
+        {
+            settings[name] = value;
+        }
+        var configuration = new ConfigurationBuilder().AddInMemoryCollection(settings).Build();
         var time = new FakeTimeProvider(TestMarket.Now);
         var services = new ServiceCollection();
         services.AddLogging();
@@ -80,7 +86,7 @@ public sealed class ServiceUnderTest : IAsyncDisposable
         services.AddMonitorServiceCore(configuration, null, static (s, bus) => s.AddMassTransitTestHarness(bus));
         if (logStream is not null)
         {
-            services.AddSingleton(sp => new ExposureLogWriter(TestKey.Value, sp.GetRequiredService<IOptions<ExposureLogOptions>>().Value, sp.GetRequiredService<TimeProvider>(), logStream));
+            services.AddSingleton(sp => new ExposureLogWriter(sp.GetRequiredService<Monitor.Service.Storage.RecordKey>(), sp.GetRequiredService<IOptions<ExposureLogOptions>>().Value, sp.GetRequiredService<TimeProvider>(), logStream));
         }
         services.Configure<TestHarnessOptions>(o => o.TestInactivityTimeout = TimeSpan.FromSeconds(2));
         var provider = services.BuildServiceProvider(validateScopes: true);
