@@ -6,7 +6,7 @@ using static Monitor.Service.Tests.Journal.JournalTestEngine;
 
 namespace Monitor.Service.Tests.Journal;
 
-/// <summary>Writing and reading back the journal (format MTJ-1, src/Monitor.Service/Journal/README.md).</summary>
+/// <summary>Writing and reading back the journal (format trade-journal/2, src/Monitor.Service/Journal/README.md).</summary>
 public sealed class TradeJournalTests
 {
     private static readonly DateOnly Day = new(2026, 6, 1);
