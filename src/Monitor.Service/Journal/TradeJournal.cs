@@ -33,6 +33,7 @@ public sealed class TradeJournal : IAsyncDisposable
     private string _lastMac = JournalLine.Genesis;
     private long _goodLength;
     private bool _needsRepair;
+    private string? _lost;
     private volatile string? _lastError;
     private long _flushes;
     private long _records;
@@ -237,6 +238,14 @@ public sealed class TradeJournal : IAsyncDisposable
     /// <summary>Opens the day file for appending: cuts back what a failed write left, and on first opening a file continues its sequence.</summary>
     private void EnsureOpen(string path)
     {
+        if (_lost is not null)
+        {
+            throw new IOException(_lost);
+        }
+        if (_stream is not null && _path is not null)
+        {
+            CheckStillOnDisk(_path);
+        }
         if (_stream is not null && !_needsRepair && string.Equals(path, _path, StringComparison.Ordinal))
         {
             return;
@@ -266,6 +275,25 @@ public sealed class TradeJournal : IAsyncDisposable
         }
         _stream = new FileStream(path, FileMode.Append, FileAccess.Write, FileShare.Read, bufferSize: 64 * 1024);
         _needsRepair = false;
+    }
+
+    /// <summary>
+    /// Refuses to write into a file that is no longer the one on disk: the day file (or its folder) was deleted or
+    /// replaced under the writer, so appends would go into an unlinked file and vanish at the next start. The path must
+    /// still exist with exactly the bytes this writer put there (a replacement of the very same length is not caught).
+    /// From then on every write fails (a storage fault: <c>storage</c> Unhealthy, acknowledgements stop) until the
+    /// file is restored and the service restarted.
+    /// </summary>
+    private void CheckStillOnDisk(string path)
+    {
+        var onDisk = File.Exists(path) ? FileLength.Of(path) : -1;
+        if (onDisk != _goodLength)
+        {
+            _lost = onDisk < 0
+                ? $"the journal day file {path} (or its folder) was deleted while the service was writing it; restore it and restart the service."
+                : $"the journal day file {path} holds {onDisk} bytes but this writer wrote {_goodLength}: it was replaced or changed while the service was writing it; restore it and restart the service.";
+            throw new IOException(_lost);
+        }
     }
 
     private void CloseQuietly()
