@@ -59,6 +59,14 @@ public class ContractSurfaceTests
         record Monitor.Contracts.V1.ExcludedQuote
           required String QuoteId
           required String Reason
+        record Monitor.Contracts.V1.ExposureLogCheckpointed
+          required String CheckpointMac
+          required DateTimeOffset CheckpointedAt
+          required DateOnly Day
+          required Int64 DayRecords
+          required String Mac
+          required String Reason
+          required Int64 Seq
         record Monitor.Contracts.V1.FitSummary
           required IReadOnlyList<ExcludedQuote> Excluded
           required Int32 Iterations

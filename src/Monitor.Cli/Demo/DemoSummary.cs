@@ -51,10 +51,10 @@ internal static class DemoSummary
             string.Create(inv, $"{c.Curve} v{c.Version} RMSE {(c.RmseBp is { } r ? r.ToString("F2", inv) : "-")} bp"))));
         var v = outcome.Verification;
         output.WriteLine(v.Intact
-            ? $"Exposure log {outcome.ExposureLogFolder}: intact, {v.Records} records, seq {v.FirstSeq}..{v.LastSeq}, last hash {v.LastHash}"
+            ? $"Exposure log {outcome.ExposureLogFolder}: intact, {v.Records} records, seq {v.FirstSeq}..{v.LastSeq}, anchored by {v.Checkpoints} checkpoint(s) up to seq {v.AnchoredSeq?.ToString(inv) ?? "-"}, {v.Unanchored} unanchored"
             : $"Exposure log {outcome.ExposureLogFolder}: NOT intact, {v.Problems.Count} problem(s): {string.Join("; ", v.Problems.Select(p => $"{p.Kind} at {p.File}:{p.LineNumber}"))}");
-        output.WriteLine($"Check it again: dotnet run --project src/Monitor.Cli -- verify-log \"{outcome.ExposureLogFolder}\"");
-        output.WriteLine($"Working folder (config copy, exposure log, service log monitor.log): {outcome.WorkDir}");
+        output.WriteLine($"Check it again: dotnet run --project src/Monitor.Cli -- verify-log \"{outcome.ExposureLogFolder}\" --key-file \"{outcome.KeyFile}\" --checkpoints \"{outcome.CheckpointFolder}\"");
+        output.WriteLine($"Working folder (config copy, record key record.key, exposure log and its checkpoints, service log monitor.log): {outcome.WorkDir}");
     }
 
     /// <summary>Each breach with the event time it started and the time it stepped down (null when it never did).</summary>

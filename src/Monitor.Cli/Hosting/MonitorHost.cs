@@ -4,6 +4,7 @@ using Microsoft.Extensions.DependencyInjection;
 using Microsoft.Extensions.Hosting;
 using Microsoft.Extensions.Options;
 using Monitor.Service.Audit;
+using Monitor.Service.Storage;
 using Monitor.Service.Hosting;
 using Serilog;
 
@@ -57,6 +58,7 @@ internal static class MonitorHost
         Read<MonitorOptions>(services, failures);
         Read<TransportOptions>(services, failures);
         Read<ExposureLogOptions>(services, failures);
+        Read<RecordOptions>(services, failures);
         if (failures.Count > 0)
         {
             throw new AggregateException(failures);

@@ -8,8 +8,8 @@ namespace Monitor.Cli.Verbs;
 
 /// <summary>
 /// <c>monitor run [--config FILE]</c>: runs the service until Ctrl+C (or SIGTERM), which stops it cleanly and writes the
-/// day-end snapshot. Exit 0 after a clean stop, 2 when the configuration is refused or a folder is in use by another instance (the reasons go
-/// to stderr), 5 when a fault stopped the service.
+/// day-end snapshot. Exit 0 after a clean stop, 2 when the configuration is refused, a folder is in use by another instance, or the
+/// journal or exposure log fails its check at start (the reasons go to stderr), 5 when a fault stopped the service.
 /// </summary>
 internal static class RunVerb
 {
@@ -22,7 +22,7 @@ internal static class RunVerb
     {
         var config = new Option<FileInfo>("--config")
         {
-            Description = "Service configuration (JSON; sections Monitor, Transport, ExposureLog, Serilog). Environment variables override it: Transport__Kind=RabbitMq.",
+            Description = "Service configuration (JSON; sections Monitor, Transport, ExposureLog, Journal, Record, Serilog; the record key from Record:KeyFile or MONITOR_RECORD_KEY). Environment variables override it: Transport__Kind=RabbitMq.",
             DefaultValueFactory = _ => new FileInfo(Path.Combine("config", "service.json")),
         };
         var command = new Command("run", "Run the monitor service on the transport the configuration names (InMemory or RabbitMq) until stopped.");
@@ -74,6 +74,12 @@ internal static class RunVerb
             if (StartupFailure.FolderInUse(ex) is { } inUse)
             {
                 await error.WriteLineAsync($"monitor run: {inUse.Message}").ConfigureAwait(false);
+                return ConfigurationRefused;
+            }
+            if (StartupFailure.RefusedRecord(ex) is { } refused)
+            {
+                // A journal line failing its check, books that disagree with the log, a log whose end fails its MAC.
+                await error.WriteLineAsync($"monitor run: the start was stopped: {refused.Message}").ConfigureAwait(false);
                 return ConfigurationRefused;
             }
             var problems = StartupFailure.ConfigurationProblems(ex, configuration);

@@ -27,6 +27,9 @@ public static class ExposureLogKinds
     /// <summary>End of the business day.</summary>
     public const string DayEnd = "day-end";
 
+    /// <summary>A journal line or trade lost at start and let through by <c>Journal:AcceptLoss</c> (one record per loss).</summary>
+    public const string JournalLoss = "journal-loss";
+
     /// <summary>Written by the writer itself: a torn last line (crash mid-write) was cut off at start.</summary>
     public const string LogRepaired = "log-repaired";
 }

@@ -47,6 +47,17 @@ public static class ServiceRegistration
         services.AddOptions<HealthOptions>().Bind(configuration.GetSection(HealthOptions.SectionName)).ValidateOnStart();
         services.AddSingleton<IValidateOptions<HealthOptions>>(new HealthOptionsValidator());
 
+        // The record key (HMAC-SHA256 of the exposure log, its checkpoints and the journal): from a secret file or the environment.
+        services.AddOptions<RecordOptions>().Bind(configuration.GetSection(RecordOptions.SectionName)).ValidateOnStart();
+        services.AddSingleton<IValidateOptions<RecordOptions>>(sp => new RecordOptionsValidator(
+            sp.GetRequiredService<IOptions<ExposureLogOptions>>(), sp.GetRequiredService<IOptions<JournalOptions>>(), Environment.GetEnvironmentVariable));
+        services.AddSingleton(sp =>
+        {
+            var record = sp.GetRequiredService<IOptions<RecordOptions>>().Value;
+            var (key, problem) = RecordKey.Resolve(record.KeyFile, "Record:KeyFile", Environment.GetEnvironmentVariable);
+            return key ?? throw new OptionsValidationException(RecordOptions.SectionName, typeof(RecordOptions), [problem!]);
+        });
+
         services.AddMetrics();
         services.AddSingleton<MonitorMetrics>();
         // The trade journal sits beside the exposure log unless Journal:Folder names another place.
@@ -63,17 +74,20 @@ public static class ServiceRegistration
         services.AddSingleton(sp => new WriterLocks(sp.GetRequiredService<IOptions<ExposureLogOptions>>().Value.Folder, sp.GetRequiredService<IOptions<JournalOptions>>().Value.Folder));
         services.AddSingleton(sp => AfterWriterLocks(sp, () => EngineRecovery.Start(
             EngineFactory.Create(sp.GetRequiredService<IOptions<MonitorOptions>>().Value, sp.GetRequiredService<TimeProvider>()),
+            sp.GetRequiredService<RecordKey>(),
             sp.GetRequiredService<IOptions<JournalOptions>>().Value,
+            sp.GetRequiredService<IOptions<ExposureLogOptions>>().Value,
             sp.GetRequiredService<TimeProvider>().GetUtcNow())));
         services.AddSingleton(sp => sp.GetRequiredService<EngineRecovery>().Engine);
-        services.AddSingleton(sp => AfterWriterLocks(sp, () => new TradeJournal(sp.GetRequiredService<IOptions<JournalOptions>>().Value, sp.GetRequiredService<TimeProvider>())));
-        services.AddSingleton(sp => AfterWriterLocks(sp, () => new ExposureLogWriter(sp.GetRequiredService<IOptions<ExposureLogOptions>>().Value, sp.GetRequiredService<TimeProvider>())));
+        services.AddSingleton(sp => AfterWriterLocks(sp, () => new TradeJournal(sp.GetRequiredService<RecordKey>(), sp.GetRequiredService<IOptions<JournalOptions>>().Value, sp.GetRequiredService<TimeProvider>())));
+        services.AddSingleton(sp => AfterWriterLocks(sp, () => new ExposureLogWriter(sp.GetRequiredService<RecordKey>(), sp.GetRequiredService<IOptions<ExposureLogOptions>>().Value, sp.GetRequiredService<TimeProvider>())));
         // Every exposure log and journal append of the pipeline runs through the gate: a storage failure stalls, never faults a message.
         services.AddSingleton<StorageFaultGate>();
         services.AddSingleton<QuoteInbox>();
         services.AddSingleton<EventOutbox>();
         services.AddSingleton<RiskPipeline>();
         services.AddSingleton<LimitsFileStatus>();
+        services.AddSingleton<ExposureLogCheckpointer>();
 
         var transport = configuration.GetSection(TransportOptions.SectionName).Get<TransportOptions>() ?? new TransportOptions();
         addBus(services, bus =>
@@ -116,6 +130,8 @@ public static class ServiceRegistration
         // Started after the bus, in this order: the outbox, opening curves, then the refit loop and the snapshots.
         // Hosted services stop in reverse order, the bus last: the outbox drains while the broker is still connected.
         services.AddHostedService(sp => sp.GetRequiredService<EventOutbox>());
+        // Second, so it stops just before the outbox: its stop checkpoint comes after the day-end records and is still published.
+        services.AddHostedService<CheckpointWorker>();
         services.AddHostedService<StartOfDayService>();
         services.AddHostedService<RetentionAtStart>();
         services.AddHostedService<CurveRefitWorker>();

@@ -1,19 +1,65 @@
+using Monitor.Service.Audit;
 using Monitor.Service.Engine;
+using Monitor.Service.Storage;
 
 namespace Monitor.Service.Journal;
 
 /// <summary>
 /// The engine as the service starts it: built from the start-of-day files, then brought up to date from today's
 /// trade journal (trades replayed by version, so a trade already in the positions file or seen twice counts once,
-/// and the latest quotes refitted). Built once, before any consumer runs.
+/// and the latest quotes refitted). Built once, before any consumer runs. Fails closed: a journal line failing its
+/// check (anything but a torn last line) or a trade the exposure log says was applied and the books do not hold stops
+/// the start with <see cref="JournalRejectedException"/>, unless <see cref="JournalOptions.AcceptLoss"/> is set, in which
+/// case each loss is kept in <see cref="Losses"/> for the start to write to the exposure log.
 /// </summary>
 public sealed record EngineRecovery(RiskEngine Engine, JournalContents Journal, JournalRecoveryResult Result)
 {
-    public static EngineRecovery Start(RiskEngine engine, JournalOptions journal, DateTimeOffset now)
+    /// <summary>What was lost and let through under <see cref="JournalOptions.AcceptLoss"/> (empty otherwise).</summary>
+    public IReadOnlyList<string> Losses { get; init; } = [];
+
+    /// <exception cref="JournalRejectedException">A bad journal line, or the books disagree with the exposure log.</exception>
+    public static EngineRecovery Start(RiskEngine engine, RecordKey key, JournalOptions journal, ExposureLogOptions log, DateTimeOffset now)
     {
         ArgumentNullException.ThrowIfNull(engine);
         ArgumentNullException.ThrowIfNull(journal);
-        var contents = JournalReplay.Read(journal.Folder, JournalFiles.DayOf(now, journal.BusinessDayUtcOffset));
-        return new EngineRecovery(engine, contents, JournalRecovery.Rebuild(engine, contents, now));
+        ArgumentNullException.ThrowIfNull(log);
+        var contents = JournalReplay.Read(key, journal.Folder, JournalFiles.DayOf(now, journal.BusinessDayUtcOffset));
+        var bad = contents.Problems.Where(p => p.Kind != JournalProblemKind.TornTail).Select(p => p.ToString()).ToList();
+        if (bad.Count > 0 && !journal.AcceptLoss)
+        {
+            throw new JournalRejectedException(
+                $"The trade journal {contents.Path} has {bad.Count} line(s) failing their check; the start is stopped so that no trade is silently lost or forged:"
+                + Environment.NewLine + "  " + string.Join(Environment.NewLine + "  ", bad) + Environment.NewLine + WayForward);
+        }
+        var result = JournalRecovery.Rebuild(engine, contents, now);
+        var differing = Differing(engine, LoggedTrades.ReadDay(log.Folder, ExposureLogFiles.DayOf(now, log.BusinessDayUtcOffset)));
+        if (differing.Count > 0 && !journal.AcceptLoss)
+        {
+            throw new JournalRejectedException(
+                $"After replaying {contents.Path} the books do not hold {differing.Count} trade(s) that the exposure log in {log.Folder} records as applied today:"
+                + Environment.NewLine + "  " + string.Join(Environment.NewLine + "  ", differing) + Environment.NewLine + WayForward);
+        }
+        return new EngineRecovery(engine, contents, result) { Losses = [.. bad, .. differing] };
+    }
+
+    /// <summary>The documented ways to proceed (Journal/README.md, "When the start is refused").</summary>
+    public const string WayForward =
+        "To proceed: restore the journal day file from its archive or backup copy and start again; or, when no good copy exists, "
+        + "move the bad file aside, start once with Journal:AcceptLoss=true (environment Journal__AcceptLoss=true), which writes every "
+        + "lost line and trade to the exposure log as a journal-loss record, re-book the trades named above, and unset the option.";
+
+    /// <summary>Trades the log records as applied (trade id, version) that the engine's register does not hold at that version or later.</summary>
+    private static List<string> Differing(RiskEngine engine, IReadOnlyCollection<(string TradeId, int Version)> logged)
+    {
+        var differing = new List<string>();
+        foreach (var (tradeId, version) in logged.OrderBy(t => t.TradeId, StringComparer.Ordinal).ThenBy(t => t.Version))
+        {
+            var held = engine.Trades.Latest(tradeId);
+            if (held is null || held.Version < version)
+            {
+                differing.Add($"trade {tradeId} v{version}: logged as applied, but the books hold {(held is null ? "no version of it" : $"only v{held.Version}")}.");
+            }
+        }
+        return differing;
     }
 }

@@ -35,6 +35,9 @@ public sealed class JournalContents
     /// <summary>Bytes up to and including the last line feed: what stays when a torn tail is cut off.</summary>
     public long CompleteLength { get; }
 
+    /// <summary>The mac of the last good line (64 zeros for an empty or missing file): the next line's prevMac.</summary>
+    public string LastMac { get; init; } = JournalLine.Genesis;
+
     public static JournalContents Empty(string path) =>
         new(path, [], new Dictionary<string, BondQuote>(StringComparer.Ordinal), [], 0, 0);
 }

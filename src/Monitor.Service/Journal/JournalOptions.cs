@@ -14,6 +14,13 @@ public sealed class JournalOptions
     /// </summary>
     public TimeSpan BusinessDayUtcOffset { get; set; } = TimeSpan.Zero;
 
+    /// <summary>
+    /// Start although today's journal has lines failing their check or the books miss trades the exposure log records
+    /// as applied: each such loss is written to the exposure log as a <c>journal-loss</c> record and logged as an error.
+    /// Default false (the start is refused). Set it for one start only, after moving the bad file aside (Journal/README.md).
+    /// </summary>
+    public bool AcceptLoss { get; set; }
+
     /// <summary>Most records written between two flushes (one fsync per batch). Default 512.</summary>
     public int MaxBatch { get; set; } = 512;
 }

@@ -4,4 +4,11 @@ using Monitor.Service.Engine;
 namespace Monitor.Service.Journal;
 
 /// <summary>One journal line read back: its sequence number and either a trade or a quote.</summary>
-public sealed record JournalRecord(long Seq, DateTimeOffset WrittenTime, TradeInput? Trade, BondQuote? Quote);
+public sealed record JournalRecord(long Seq, DateTimeOffset WrittenTime, TradeInput? Trade, BondQuote? Quote)
+{
+    /// <summary>mac of the line before in the day file (64 zeros for the first line).</summary>
+    public string PrevMac { get; init; } = string.Empty;
+
+    /// <summary>This line's HMAC-SHA256 under the record key.</summary>
+    public string Mac { get; init; } = string.Empty;
+}

@@ -6,6 +6,7 @@ using Monitor.Service.Audit;
 using Monitor.Service.Engine;
 using Monitor.Service.Hosting;
 using Monitor.Service.Journal;
+using Monitor.Service.Storage;
 
 namespace Monitor.Service.Pipeline;
 
@@ -13,7 +14,9 @@ namespace Monitor.Service.Pipeline;
 /// Runs once the bus is up: builds the engine (instruments, positions, limits: a bad file stops the start; then
 /// today's trade journal replayed), reports what the replay did and logs and publishes its refit, then fits the opening curves from the opening quotes file when one is configured, publishing the result.
 /// </summary>
-public sealed partial class StartOfDayService(RiskPipeline pipeline, EngineRecovery recovery, IOptions<MonitorOptions> options, IOptions<ExposureLogOptions> log, ILogger<StartOfDayService> logger)
+public sealed partial class StartOfDayService(
+    RiskPipeline pipeline, EngineRecovery recovery, IOptions<MonitorOptions> options, IOptions<ExposureLogOptions> log,
+    ExposureLogWriter writer, StorageFaultGate storage, TimeProvider time, ILogger<StartOfDayService> logger)
     : IHostedService
 {
     public async Task StartAsync(CancellationToken cancellationToken)
@@ -32,6 +35,15 @@ public sealed partial class StartOfDayService(RiskPipeline pipeline, EngineRecov
         foreach (var problem in recovery.Journal.Problems)
         {
             LogJournalProblem(problem.ToString());
+        }
+        foreach (var loss in recovery.Losses)
+        {
+            // Journal:AcceptLoss let the start through: each loss goes on record before anything else happens.
+            LogJournalLoss(loss);
+            var payload = new Dictionary<string, object?> { ["journal"] = Path.GetFileName(recovery.Journal.Path), ["loss"] = loss };
+            await storage.RunAsync(StorageFaultGate.ExposureLog,
+                () => writer.Append(ExposureLogKinds.JournalLoss, time.GetUtcNow(), new ExposureLogCause(null, "journal-accept-loss"), payload),
+                cancellationToken).ConfigureAwait(false);
         }
         var restored = await pipeline.RecordReplayedTradesAsync(recovery.Journal.Trades, log.Value.Folder, cancellationToken).ConfigureAwait(false);
         if (restored > 0)
@@ -71,6 +83,9 @@ public sealed partial class StartOfDayService(RiskPipeline pipeline, EngineRecov
 
     [LoggerMessage(Level = LogLevel.Warning, Message = "Trade journal problem found on replay: {Problem}")]
     private partial void LogJournalProblem(string problem);
+
+    [LoggerMessage(Level = LogLevel.Error, Message = "Journal:AcceptLoss: started although {Loss}; written to the exposure log as a journal-loss record")]
+    private partial void LogJournalLoss(string loss);
 
     [LoggerMessage(Level = LogLevel.Information, Message = "Opening curves fitted from {Count} quotes in {Path}")]
     private partial void LogOpeningFit(int count, string path);

@@ -75,7 +75,7 @@ public sealed class BrokerScenarioTests : IDisposable
                 Assert.Equal(4_000_000, await pipeline.ReadAsync(e => e.Books["RATES-CURVE"].Positions["VGB-2051-11"]));
                 await StopService(host);
             }
-            var log = ExposureLogVerifier.VerifyFolder(_folder.Combine("exposure-log"));
+            var log = ExposureLogVerifier.VerifyFolder(TestKey.Value, _folder.Combine("exposure-log"));
             Assert.True(log.Intact, string.Join("; ", log.Problems));
             await DeleteQueues(channel);
         }

@@ -61,16 +61,24 @@ public sealed class ServiceUnderTest : IAsyncDisposable
         ["Monitor:BookEventInterval"] = "00:00:00",
         ["ExposureLog:Folder"] = logFolder,
         ["ExposureLog:FlushToDisk"] = "false",
+        // The record key in a file beside (never inside) the log folder.
+        ["Record:KeyFile"] = TestKey.FileIn(Path.GetDirectoryName(Path.GetFullPath(logFolder))!),
     };
 
     /// <param name="limitsFile">A limits file other than Data/limits.json.</param>
     /// <param name="logStream">Wraps each exposure-log day file's stream (to inject write failures).</param>
     /// <param name="root">A folder the caller keeps (to restart a service on the same log and journal); default a new temporary one.</param>
-    public static async Task<ServiceUnderTest> StartAsync(string? limitsFile = null, Func<Stream, Stream>? logStream = null, string? root = null)
+    /// <param name="extra">Settings added to (or replacing) the defaults, e.g. <c>Journal:AcceptLoss</c>.</param>
+    public static async Task<ServiceUnderTest> StartAsync(string? limitsFile = null, Func<Stream, Stream>? logStream = null, string? root = null, IReadOnlyDictionary<string, string?>? extra = null)
     {
         var folder = root is null ? new TempFolder() : null;
         var logFolder = Path.Combine(root ?? folder!.Path, "exposure-log");
-        var configuration = new ConfigurationBuilder().AddInMemoryCollection(Settings(logFolder, limitsFile)).Build();
+        var settings = Settings(logFolder, limitsFile);
+        foreach (var (name, value) in extra ?? new Dictionary<string, string?>())
+        {
+            settings[name] = value;
+        }
+        var configuration = new ConfigurationBuilder().AddInMemoryCollection(settings).Build();
         var time = new FakeTimeProvider(TestMarket.Now);
         var services = new ServiceCollection();
         services.AddLogging();
@@ -78,7 +86,7 @@ public sealed class ServiceUnderTest : IAsyncDisposable
         services.AddMonitorServiceCore(configuration, null, static (s, bus) => s.AddMassTransitTestHarness(bus));
         if (logStream is not null)
         {
-            services.AddSingleton(sp => new ExposureLogWriter(sp.GetRequiredService<IOptions<ExposureLogOptions>>().Value, sp.GetRequiredService<TimeProvider>(), logStream));
+            services.AddSingleton(sp => new ExposureLogWriter(sp.GetRequiredService<Monitor.Service.Storage.RecordKey>(), sp.GetRequiredService<IOptions<ExposureLogOptions>>().Value, sp.GetRequiredService<TimeProvider>(), logStream));
         }
         // TestTimeout: past it the harness cancels its token and the stop (day-end snapshot) fails; tests that wait on the
         // limits file's polling watcher run longer than the 30 s default on a loaded machine.
@@ -129,7 +137,7 @@ public sealed class ServiceUnderTest : IAsyncDisposable
 
     public Task<EngineState> StateAsync() => Pipeline.ReadAsync(EngineState.Of);
 
-    public ExposureLogVerification VerifyLog() => ExposureLogVerifier.VerifyFolder(LogFolder);
+    public ExposureLogVerification VerifyLog() => ExposureLogVerifier.VerifyFolder(TestKey.Value, LogFolder);
 
     public static BondQuoted ToMessage(BondQuote q) => new()
     {
