@@ -33,6 +33,8 @@ public sealed class RiskEngine
     private readonly ParYieldCurveFitter _parYieldFitter = new();
     private readonly Dictionary<string, SpreadCurveFitter> _spreadFitters = new(StringComparer.Ordinal);
     private readonly TradeRegister _trades = new();
+    // The last traded clean price per instrument: the stand-in spread's price when a bond has no quote.
+    private readonly Dictionary<string, (double CleanPrice, DateTimeOffset Time)> _lastTradePrices = new(StringComparer.Ordinal);
 
     /// <summary>Days either side of the valuation date a trade time may fall (common practice, no source: late bookings within a week).</summary>
     private const int TradeDayWindow = 7;
@@ -209,9 +211,9 @@ public sealed class RiskEngine
             {
                 var outcome = FitSpread(curve, government.Curve, now);
                 result.Curves.Add(outcome);
-                if (outcome.Accepted)
+                if (outcome.Accepted || curve.Curve is null)
                 {
-                    changed.Add(curve.Key);
+                    changed.Add(curve.Key); // still no curve: its books' stand-in spreads move with the new quotes
                 }
             }
         }
@@ -287,6 +289,11 @@ public sealed class RiskEngine
             }
         }
         _trades.Record(trade);
+        if (trade.Action != TradeAction.Cancel
+            && (!_lastTradePrices.TryGetValue(trade.InstrumentId, out var last) || last.Time <= trade.TradeTime))
+        {
+            _lastTradePrices[trade.InstrumentId] = (trade.CleanPrice, trade.TradeTime);
+        }
         if (_curves[CurveKey.Government].Curve is not null)
         {
             Revalue(touched, now, result);
@@ -394,19 +401,22 @@ public sealed class RiskEngine
     /// Revalues <paramref name="books"/> on the current curves: per curve key they hold, the instrument rows (built once
     /// per curve change, <see cref="CurveKeyInstruments"/>) times each book's quantities, all these books in one pass;
     /// a book's total is the sum of its keys' exposures, as for its cash flows merged by date. A book holding a spread
-    /// group without a fitted curve waits (<see cref="EngineResult.BooksAwaitingCurves"/>).
+    /// group without a fitted curve is valued position by position with stand-in spreads and its figures are provisional
+    /// (<see cref="ValueProvisionally"/>, <see cref="EngineResult.BooksAwaitingCurves"/>): never left out of its desk and firm.
     /// </summary>
     private void Revalue(IEnumerable<BookState> books, DateTimeOffset now, EngineResult result)
     {
         var clock = Stopwatch.StartNew();
         var government = _curves[CurveKey.Government].Curve!;
         var priced = new List<BookState>(books is ICollection<BookState> all ? all.Count : 0);
+        List<BookState>? provisional = null;
         Func<string, bool> awaitsCurve = k => !CurveKey.IsGovernment(k) && _curves[k].Curve is null; // one delegate, not one per book
         foreach (var book in books)
         {
             if (book.HoldsAny(awaitsCurve))
             {
                 result.BooksAwaitingCurves.Add(book.Id);
+                (provisional ??= []).Add(book);
             }
             else
             {
@@ -456,8 +466,8 @@ public sealed class RiskEngine
             }
         }
         var figures = new BookFiguresBuilder(government.FactorCount, passes.ConvertAll(p => p.Key), matrices, priced.Count);
-        var limitUpdates = new (string BookId, BookExposures Exposures)[priced.Count];
-        result.Books.EnsureCapacity(result.Books.Count + priced.Count);
+        var limitUpdates = new (string BookId, BookExposures Exposures)[priced.Count + (provisional?.Count ?? 0)];
+        result.Books.EnsureCapacity(result.Books.Count + limitUpdates.Length);
         for (var i = 0; i < priced.Count; i++)
         {
             var book = priced[i];
@@ -467,10 +477,78 @@ public sealed class RiskEngine
             result.Books.Add(update);
             limitUpdates[i] = (book.Id, exposures);
         }
+        for (var i = 0; provisional is not null && i < provisional.Count; i++)
+        {
+            var update = ValueProvisionally(provisional[i], government);
+            provisional[i].SetFigures(update, now);
+            result.Books.Add(update);
+            limitUpdates[priced.Count + i] = (update.Book, update.Exposures);
+        }
         // All books first, then each desk and the firm once on the new figures (not once per book).
         result.StatusChanges.AddRange(_limits.UpdateBooks(limitUpdates, now));
         result.ExposureMilliseconds += clock.Elapsed.TotalMilliseconds;
         result.CurvesUsed = CurvesInUse();
+    }
+
+    /// <summary>
+    /// A book holding a spread group without a fitted curve, valued position by position (<see cref="PositionRisk"/>):
+    /// bonds of a fitted curve on it, the others on the government curve plus a flat spread from their own price
+    /// (<see cref="StandInSpread"/>), one reason per such bond. Off the fast path: only while a curve is missing.
+    /// </summary>
+    private BookUpdate ValueProvisionally(BookState book, IFactorCurve government)
+    {
+        var byKey = new SortedDictionary<string, FactorExposures>(StringComparer.Ordinal);
+        var reasons = new List<string>();
+        foreach (var (id, face) in book.Positions.OrderBy(p => p.Key, StringComparer.Ordinal))
+        {
+            var registered = _registered[id];
+            if (registered.FlowCount == 0)
+            {
+                continue; // matured: nothing left to value, as on the fast path
+            }
+            var key = registered.CurveKey;
+            var spread = CurveKey.IsGovernment(key) ? null : _curves[key].Curve;
+            if (!CurveKey.IsGovernment(key) && spread is null)
+            {
+                var bond = _instruments[id];
+                (spread, var reason) = StandInSpread.For(bond, ValuationDate, government,
+                    _curves[key].LatestQuotes.GetValueOrDefault(id), _lastTradePrices.TryGetValue(id, out var last) ? last : null);
+                reasons.Add(reason);
+            }
+            var exposures = PositionRisk.Compute(_byCurveKey[key].Table.CashFlows(registered.Number), ValuationDate, government, spread, face / 100.0);
+            byKey[key] = byKey.TryGetValue(key, out var sum) ? sum.Plus(exposures) : exposures;
+        }
+        var total = FactorExposures.Zero(government.FactorCount, 0);
+        foreach (var exposures in byKey.Values)
+        {
+            total = total.Plus(exposures);
+        }
+        var risk = new BookRisk(total, new Dictionary<string, FactorExposures>(byKey, StringComparer.Ordinal));
+        return new BookUpdate(book.Id, ExposureMapping.ToBookExposures(risk), risk) { ProvisionalReasons = reasons };
+    }
+
+    /// <summary>
+    /// Why the figures a limit of <paramref name="scope"/> is judged on are provisional: the reasons of every book in the
+    /// scope whose last figures are (prefixed with the book for a desk or the firm); empty when none is.
+    /// </summary>
+    public IReadOnlyList<string> ProvisionalReasons(LimitScope scope)
+    {
+        List<string>? reasons = null;
+        foreach (var book in _books.Values.OrderBy(b => b.Id, StringComparer.Ordinal))
+        {
+            if (book.ProvisionalReasons.Count == 0
+                || (scope.Level == LimitScopeLevel.Desk && book.Desk != scope.Id)
+                || (scope.Level == LimitScopeLevel.Book && book.Id != scope.Id))
+            {
+                continue;
+            }
+            reasons ??= [];
+            foreach (var reason in book.ProvisionalReasons)
+            {
+                reasons.Add(scope.Level == LimitScopeLevel.Book ? reason : $"book {book.Id}: {reason}");
+            }
+        }
+        return reasons ?? (IReadOnlyList<string>)[];
     }
 
     /// <summary>How many times instrument rows were built, over all curve keys (tests check that a trade builds none).</summary>
