@@ -20,6 +20,9 @@ public sealed record EngineSettings
 
     public FitQualityGate SpreadGate { get; init; } = new(MaxRmseBp: 15, MaxAbsErrorBp: 60, MinInstruments: 4);
 
+    /// <summary>The currency of every figure; a bond in another is refused (null: no check, for tests of the analytics).</summary>
+    public string? ReportingCurrency { get; init; }
+
     /// <summary>A quote older than this when a curve is fitted is left out as stale.</summary>
     public TimeSpan StaleAfter { get; init; } = TimeSpan.FromHours(4);
 }

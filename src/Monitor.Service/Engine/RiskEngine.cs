@@ -73,6 +73,7 @@ public sealed class RiskEngine
     public void DefineInstrument(Bond bond)
     {
         ArgumentNullException.ThrowIfNull(bond);
+        CheckCurrency(bond);
         if (_instruments.TryGetValue(bond.Id, out var existing) && !SameTerms(existing, bond) && IsHeld(bond.Id))
         {
             throw new MessageRejectedException("instrumentId", bond.Id, "is held in a book and its terms differ from the ones in use; amend reference data after the positions are closed.");
@@ -106,6 +107,7 @@ public sealed class RiskEngine
     {
         ArgumentNullException.ThrowIfNull(quote);
         var bond = RequireInstrument(quote.InstrumentId, "instrumentId");
+        CheckCurrency(bond);
         CheckEventTime("quoteTime", quote.QuoteTime, now);
         return Price(bond, quote);
     }
@@ -242,6 +244,7 @@ public sealed class RiskEngine
         ArgumentNullException.ThrowIfNull(trade);
         RequireBook(trade.Book, "book");
         var bond = RequireInstrument(trade.InstrumentId, "instrumentId");
+        CheckCurrency(bond);
         CheckFace(trade.FaceAmount);
         if (trade.Action != TradeAction.Cancel && bond.MaturityDate <= ValuationDate)
         {
@@ -602,6 +605,16 @@ public sealed class RiskEngine
         if (time < now - TimeSpan.FromDays(7))
         {
             throw new MessageRejectedException(field, Iso(time), $"is more than 7 days old (now {Iso(now)}).");
+        }
+    }
+
+    /// <summary>One reporting currency until several are supported: a bond in another would be priced on the wrong curve and summed into the wrong totals.</summary>
+    private void CheckCurrency(Bond bond)
+    {
+        if (Settings.ReportingCurrency is { } reporting && !string.Equals(bond.Currency, reporting, StringComparison.Ordinal))
+        {
+            throw new MessageRejectedException("currency", bond.Currency,
+                $"of instrument {bond.Id} is not the reporting currency {reporting} (Monitor:ReportingCurrency); bonds in other currencies are refused until several currencies are supported.");
         }
     }
 

@@ -19,6 +19,13 @@ public sealed class MonitorOptions
     /// <summary>Optional quotes to fit the opening curves from before the first message.</summary>
     public string? OpeningQuotesFile { get; set; }
 
+    /// <summary>
+    /// The currency every figure is in (ISO 4217 code). Until several currencies are supported, a bond in any other
+    /// currency is refused: in the instruments file (the start stops), in InstrumentDefined, and trades and quotes on
+    /// it. Default XTS, the ISO 4217 code reserved for testing that the example files use: set your books' currency.
+    /// </summary>
+    public string ReportingCurrency { get; set; } = "XTS";
+
     /// <summary>Valuation (spot) date; default the next business day after today's UTC date.</summary>
     public DateOnly? ValuationDate { get; set; }
 

@@ -13,6 +13,10 @@ public sealed class MonitorOptionsValidator : IValidateOptions<MonitorOptions>
         RequireFile(failures, "Monitor:LimitsFile", options.LimitsFile, required: true);
         RequireFile(failures, "Monitor:PositionsFile", options.PositionsFile, required: false);
         RequireFile(failures, "Monitor:OpeningQuotesFile", options.OpeningQuotesFile, required: false);
+        if (options.ReportingCurrency is null || options.ReportingCurrency.Length != 3 || !options.ReportingCurrency.All(char.IsAsciiLetterUpper))
+        {
+            failures.Add($"Monitor:ReportingCurrency: '{options.ReportingCurrency}' is not an ISO 4217 code; use three capital letters, e.g. EUR.");
+        }
         if (!Enum.IsDefined(options.BaseCurveModel))
         {
             failures.Add($"Monitor:BaseCurveModel: '{options.BaseCurveModel}' is not a model; use NelsonSiegel or Svensson.");
