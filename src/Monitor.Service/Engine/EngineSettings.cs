@@ -23,6 +23,12 @@ public sealed record EngineSettings
     /// <summary>The currency of every figure; a bond in another is refused (null: no check, for tests of the analytics).</summary>
     public string? ReportingCurrency { get; init; }
 
+    /// <summary>
+    /// How far ahead of the business clock a quote may be stamped (clock skew between the feed and us); a quote stamped
+    /// further ahead is refused. Default 5 s.
+    /// </summary>
+    public TimeSpan QuoteClockTolerance { get; init; } = TimeSpan.FromSeconds(5);
+
     /// <summary>A quote older than this when a curve is fitted is left out as stale.</summary>
     public TimeSpan StaleAfter { get; init; } = TimeSpan.FromHours(4);
 }

@@ -38,6 +38,9 @@ public sealed class RiskEngine
 
     /// <summary>Days either side of the valuation date a trade time may fall (common practice, no source: late bookings within a week).</summary>
     private const int TradeDayWindow = 7;
+
+    /// <summary>How far ahead of the clock a par-yield set may be stamped (common practice, no source).</summary>
+    private static readonly TimeSpan EventClockTolerance = TimeSpan.FromMinutes(5);
     private readonly LimitSet _limits;
 
     public RiskEngine(EngineSettings settings, LimitsConfiguration limits)
@@ -108,7 +111,8 @@ public sealed class RiskEngine
         ArgumentNullException.ThrowIfNull(quote);
         var bond = RequireInstrument(quote.InstrumentId, "instrumentId");
         CheckCurrency(bond);
-        CheckEventTime("quoteTime", quote.QuoteTime, now);
+        // A quote from the future would outrank every real quote of its bond until the clock passed its stamp.
+        CheckEventTime("quoteTime", quote.QuoteTime, now, Settings.QuoteClockTolerance);
         return Price(bond, quote);
     }
 
@@ -166,7 +170,7 @@ public sealed class RiskEngine
         {
             throw new MessageRejectedException("curveId", curveId, $"has no par-yield fit; only the '{CurveKeyLabel.Government}' curve is fitted from par yields.");
         }
-        CheckEventTime("asOf", asOf, now);
+        CheckEventTime("asOf", asOf, now, EventClockTolerance);
         if (points.Count == 0)
         {
             throw new MessageRejectedException("points", "[]", "is empty; give par yields at tenors such as 1Y, 2Y, 5Y, 10Y.");
@@ -595,12 +599,13 @@ public sealed class RiskEngine
         return new PricedQuote(quote, bond, settlement, priced.CleanPrice, priced.DirtyPrice, priced.Yield, priced.ModifiedDuration, priced.Times, priced.Amounts);
     }
 
-    /// <summary>An event time more than 5 minutes ahead of the clock or more than 7 days behind it is refused.</summary>
-    private static void CheckEventTime(string field, DateTimeOffset time, DateTimeOffset now)
+    /// <summary>An event time more than <paramref name="ahead"/> ahead of the clock or more than 7 days behind it is refused.</summary>
+    private static void CheckEventTime(string field, DateTimeOffset time, DateTimeOffset now, TimeSpan ahead)
     {
-        if (time > now + TimeSpan.FromMinutes(5))
+        if (time > now + ahead)
         {
-            throw new MessageRejectedException(field, Iso(time), $"is in the future (now {Iso(now)}); check the source's clock.");
+            throw new MessageRejectedException(field, Iso(time),
+                $"is in the future (now {Iso(now)}, {ahead.TotalSeconds.ToString(CultureInfo.InvariantCulture)} s allowed ahead); check the source's clock.");
         }
         if (time < now - TimeSpan.FromDays(7))
         {

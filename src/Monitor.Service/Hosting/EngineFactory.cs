@@ -50,6 +50,7 @@ public static class EngineFactory
         SpreadGate = new FitQualityGate(options.SpreadMaxRmseBp, options.SpreadMaxErrorBp, options.SpreadMinQuotes),
         StaleAfter = options.StaleQuoteAfter,
         ReportingCurrency = options.ReportingCurrency,
+        QuoteClockTolerance = options.QuoteClockTolerance,
     };
 
     /// <summary>Spot date for a trade date: one business day later (weekends only; holiday calendars per currency are future work).</summary>

@@ -47,6 +47,12 @@ public sealed class MonitorOptions
     /// <summary>Period of book snapshots in the exposure log; 0 turns them off. Default 5 minutes.</summary>
     public TimeSpan SnapshotInterval { get; set; } = TimeSpan.FromMinutes(5);
 
+    /// <summary>
+    /// How far ahead of the service's clock a quote may be stamped; one stamped further ahead is refused (to the error
+    /// queue, naming quoteTime), so a bad stamp never outranks the good quotes after it. Default 5 s.
+    /// </summary>
+    public TimeSpan QuoteClockTolerance { get; set; } = TimeSpan.FromSeconds(5);
+
     /// <summary>Quotes older than this are left out of fits as stale. Default 4 hours.</summary>
     public TimeSpan StaleQuoteAfter { get; set; } = TimeSpan.FromHours(4);
 

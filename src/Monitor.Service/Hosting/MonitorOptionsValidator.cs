@@ -24,6 +24,7 @@ public sealed class MonitorOptionsValidator : IValidateOptions<MonitorOptions>
         Range(failures, "Monitor:ConflationWindow", options.ConflationWindow, TimeSpan.Zero, TimeSpan.FromSeconds(10), "e.g. 00:00:00.020");
         Range(failures, "Monitor:BookEventInterval", options.BookEventInterval, TimeSpan.Zero, TimeSpan.FromMinutes(10), "e.g. 00:00:01, or 0 to send book figures after every change");
         Range(failures, "Monitor:SnapshotInterval", options.SnapshotInterval, TimeSpan.Zero, TimeSpan.FromDays(1), "e.g. 00:05:00, or 0 to turn snapshots off");
+        Range(failures, "Monitor:QuoteClockTolerance", options.QuoteClockTolerance, TimeSpan.Zero, TimeSpan.FromMinutes(5), "e.g. 00:00:05");
         Range(failures, "Monitor:StaleQuoteAfter", options.StaleQuoteAfter, TimeSpan.FromSeconds(1), TimeSpan.FromDays(7), "e.g. 04:00:00");
         Positive(failures, "Monitor:BaseMaxRmseBp", options.BaseMaxRmseBp);
         Positive(failures, "Monitor:BaseMaxErrorBp", options.BaseMaxErrorBp);
