@@ -33,6 +33,8 @@ public sealed class RiskEngine
     private readonly ParYieldCurveFitter _parYieldFitter = new();
     private readonly Dictionary<string, SpreadCurveFitter> _spreadFitters = new(StringComparer.Ordinal);
     private readonly TradeRegister _trades = new();
+    // Last published version per curve key before this start (LoggedCurveVersions): versions continue from there.
+    private readonly Dictionary<string, int> _versionFloors = new(StringComparer.Ordinal);
     // The last traded clean price per instrument: the stand-in spread's price when a bond has no quote.
     private readonly Dictionary<string, (double CleanPrice, DateTimeOffset Time)> _lastTradePrices = new(StringComparer.Ordinal);
 
@@ -95,8 +97,27 @@ public sealed class RiskEngine
         _instruments[bond.Id] = bond;
         if (!_curves.ContainsKey(key))
         {
-            _curves[key] = new CurveState(key);
+            _curves[key] = new CurveState(key) { Version = _versionFloors.GetValueOrDefault(key) };
         }
+    }
+
+    /// <summary>
+    /// Continues every curve's versions from <paramref name="lastVersions"/> (curve label -&gt; last published version,
+    /// from durable state), so that versions only grow across restarts. Call before the first fit. Returns the engine.
+    /// </summary>
+    public RiskEngine ContinuingCurveVersions(IReadOnlyDictionary<string, int> lastVersions)
+    {
+        ArgumentNullException.ThrowIfNull(lastVersions);
+        foreach (var (label, version) in lastVersions)
+        {
+            var key = CurveKeyLabel.KeyOf(label);
+            _versionFloors[key] = Math.Max(version, _versionFloors.GetValueOrDefault(key));
+            if (_curves.TryGetValue(key, out var curve) && curve.Current is null)
+            {
+                curve.Version = Math.Max(curve.Version, version);
+            }
+        }
+        return this;
     }
 
     /// <summary>Keeps the quote as the newest for its bond and marks its curve for a refit. Returns the curve key.</summary>
@@ -371,20 +392,23 @@ public sealed class RiskEngine
         {
             curve.LastFitRejected = true;
             var refused = new FitQualityVerdict(false, ["no fit: " + ex.Message]);
-            return new CurveFitOutcome(curve.Key, false, null, refused, curve.Version, curve.FittedAt, offered);
+            return new CurveFitOutcome(curve.Key, false, null, refused, KeptVersion(curve), curve.FittedAt, offered);
         }
         curve.LastReport = result.Report;
         var verdict = gate.Evaluate(result.Report);
         curve.LastFitRejected = !verdict.Passed;
         if (!verdict.Passed)
         {
-            return new CurveFitOutcome(curve.Key, false, result, verdict, curve.Version, curve.FittedAt, offered);
+            return new CurveFitOutcome(curve.Key, false, result, verdict, KeptVersion(curve), curve.FittedAt, offered);
         }
         curve.Current = result;
         curve.Version++;
         curve.FittedAt = now;
         return new CurveFitOutcome(curve.Key, true, result, verdict, curve.Version, null, offered);
     }
+
+    /// <summary>The version of the curve a rejection keeps: 0 when none was fitted since the start (a continued version is not a curve).</summary>
+    private static int KeptVersion(CurveState curve) => curve.Current is null ? 0 : curve.Version;
 
     private (List<FitInstrument> Instruments, List<FitExclusion> Excluded) FitInputs(CurveState curve, DateTimeOffset now)
     {

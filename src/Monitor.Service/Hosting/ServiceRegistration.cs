@@ -54,7 +54,8 @@ public static class ServiceRegistration
                 }
             });
         services.AddSingleton(sp => EngineRecovery.Start(
-            EngineFactory.Create(sp.GetRequiredService<IOptions<MonitorOptions>>().Value, sp.GetRequiredService<TimeProvider>()),
+            EngineFactory.Create(sp.GetRequiredService<IOptions<MonitorOptions>>().Value, sp.GetRequiredService<TimeProvider>())
+                .ContinuingCurveVersions(LoggedCurveVersions.Read(sp.GetRequiredService<IOptions<ExposureLogOptions>>().Value.Folder)),
             sp.GetRequiredService<IOptions<JournalOptions>>().Value,
             sp.GetRequiredService<TimeProvider>().GetUtcNow()));
         services.AddSingleton(sp => sp.GetRequiredService<EngineRecovery>().Engine);
