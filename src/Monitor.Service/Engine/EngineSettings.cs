@@ -29,6 +29,9 @@ public sealed record EngineSettings
     /// </summary>
     public TimeSpan QuoteClockTolerance { get; init; } = TimeSpan.FromSeconds(5);
 
+    /// <summary>What fits the valuation government curve; the other source fits a reference curve (<see cref="ValuationCurveSource"/>).</summary>
+    public ValuationCurveSource ValuationCurveSource { get; init; } = ValuationCurveSource.BondQuotes;
+
     /// <summary>A quote older than this when a curve is fitted is left out as stale.</summary>
     public TimeSpan StaleAfter { get; init; } = TimeSpan.FromHours(4);
 }

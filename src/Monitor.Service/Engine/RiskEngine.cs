@@ -51,6 +51,7 @@ public sealed class RiskEngine
         ArgumentNullException.ThrowIfNull(limits);
         _limits = limits.CreateLimitSet();
         _curves[CurveKey.Government] = new CurveState(CurveKey.Government);
+        Reference = new CurveState(settings.ValuationCurveSource == ValuationCurveSource.BondQuotes ? CurveKeyLabel.GovernmentPar : CurveKeyLabel.GovernmentBonds);
         foreach (var book in limits.Hierarchy.Books)
         {
             _books[book] = new BookState(book, limits.Hierarchy.DeskOf(book));
@@ -64,6 +65,12 @@ public sealed class RiskEngine
     public IReadOnlyDictionary<string, Bond> Instruments => _instruments;
 
     public IReadOnlyDictionary<string, CurveState> Curves => _curves;
+
+    /// <summary>
+    /// The government curve fitted from the source that does not value the books (<see cref="EngineSettings.ValuationCurveSource"/>):
+    /// published under its own id, never in <see cref="Curves"/> and never used for figures.
+    /// </summary>
+    public CurveState Reference { get; }
 
     public IReadOnlyDictionary<string, BookState> Books => _books;
 
@@ -111,6 +118,10 @@ public sealed class RiskEngine
         foreach (var (label, version) in lastVersions)
         {
             var key = CurveKeyLabel.KeyOf(label);
+            if (key == Reference.Key && Reference.Current is null)
+            {
+                Reference.Version = Math.Max(Reference.Version, version);
+            }
             _versionFloors[key] = Math.Max(version, _versionFloors.GetValueOrDefault(key));
             if (_curves.TryGetValue(key, out var curve) && curve.Current is null)
             {
@@ -146,7 +157,8 @@ public sealed class RiskEngine
         {
             priced = Price(bond, priced.Quote); // the bond was redefined after the quote was priced: price on today's terms
         }
-        var curve = _curves[CurveKey.Normalize(bond.SpreadGroup)];
+        var key = CurveKey.Normalize(bond.SpreadGroup);
+        var curve = CurveKey.IsGovernment(key) && Settings.ValuationCurveSource == ValuationCurveSource.ParYields ? Reference : _curves[key];
         if (curve.LatestQuotes.TryGetValue(bond.Id, out var previous) && previous.Quote.QuoteTime > priced.Quote.QuoteTime)
         {
             return curve.Key; // an older quote arriving late never replaces a newer one
@@ -157,7 +169,7 @@ public sealed class RiskEngine
     }
 
     /// <summary>Curves with quotes waiting for a refit.</summary>
-    public IReadOnlyList<string> DirtyCurves() => _curves.Values.Where(c => c.Dirty).Select(c => c.Key).ToArray();
+    public IReadOnlyList<string> DirtyCurves() => _curves.Values.Append(Reference).Where(c => c.Dirty).Select(c => c.Key).ToArray();
 
     /// <summary>
     /// Refits every curve with new quotes (the government curve first: spread curves sit on it, so a new
@@ -167,6 +179,10 @@ public sealed class RiskEngine
     public EngineResult RefitDirtyCurves(DateTimeOffset now)
     {
         var result = new EngineResult();
+        if (Reference.Dirty)
+        {
+            result.Curves.Add(FitGovernment(Reference, now)); // bond quotes' reference curve: no figures move
+        }
         var government = _curves[CurveKey.Government];
         var governmentChanged = false;
         if (government.Dirty)
@@ -180,8 +196,9 @@ public sealed class RiskEngine
     }
 
     /// <summary>
-    /// Fits the government curve from par yields at tenors (decimals, bond-equivalent semiannual) through the
-    /// same quality gate as a bond fit; an accepted curve refits the spread curves on it and revalues every book.
+    /// Fits a government curve from par yields at tenors (decimals, bond-equivalent semiannual) through the same quality
+    /// gate as a bond fit: the reference curve <c>government-par</c> (no figures move) unless par yields are the
+    /// valuation source, when an accepted curve refits the spread curves on it and revalues every book.
     /// Only the government curve has par yields (<paramref name="curveId"/> "government").
     /// </summary>
     public EngineResult ApplyParYields(string curveId, DateTimeOffset asOf, IReadOnlyList<(string Tenor, double ParYield)> points, DateTimeOffset now)
@@ -212,8 +229,14 @@ public sealed class RiskEngine
             }
             fitPoints.Add(new Analytics.Fitting.ParYieldPoint(years, parYield));
         }
-        var government = _curves[CurveKey.Government];
         var result = new EngineResult();
+        if (Settings.ValuationCurveSource == ValuationCurveSource.BondQuotes)
+        {
+            // Par yields fit their own reference curve: fitted into the valuation curve too, it flipped between two fits.
+            result.Curves.Add(Conclude(Reference, () => _parYieldFitter.Fit(fitPoints, Settings.BaseFit, Reference.Current?.Parameters), Settings.BaseGate, now, fitPoints.Count));
+            return result;
+        }
+        var government = _curves[CurveKey.Government];
         var outcome = Conclude(government, () => _parYieldFitter.Fit(fitPoints, Settings.BaseFit, government.Current?.Parameters), Settings.BaseGate, now, fitPoints.Count);
         result.Curves.Add(outcome);
         RefitSpreadsAndRevalue(result, outcome.Accepted, now);

@@ -51,6 +51,7 @@ public static class EngineFactory
         StaleAfter = options.StaleQuoteAfter,
         ReportingCurrency = options.ReportingCurrency,
         QuoteClockTolerance = options.QuoteClockTolerance,
+        ValuationCurveSource = options.ValuationCurveSource,
     };
 
     /// <summary>Spot date for a trade date: one business day later (weekends only; holiday calendars per currency are future work).</summary>

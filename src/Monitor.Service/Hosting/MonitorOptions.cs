@@ -48,6 +48,12 @@ public sealed class MonitorOptions
     public TimeSpan SnapshotInterval { get; set; } = TimeSpan.FromMinutes(5);
 
     /// <summary>
+    /// What fits the government curve the books are valued on: BondQuotes (default; par yields then fit the reference
+    /// curve government-par) or ParYields (government bond quotes then fit the reference curve government-bonds).
+    /// </summary>
+    public Engine.ValuationCurveSource ValuationCurveSource { get; set; } = Engine.ValuationCurveSource.BondQuotes;
+
+    /// <summary>
     /// How far ahead of the service's clock a quote may be stamped; one stamped further ahead is refused (to the error
     /// queue, naming quoteTime), so a bad stamp never outranks the good quotes after it. Default 5 s.
     /// </summary>

@@ -17,6 +17,10 @@ public sealed class MonitorOptionsValidator : IValidateOptions<MonitorOptions>
         {
             failures.Add($"Monitor:ReportingCurrency: '{options.ReportingCurrency}' is not an ISO 4217 code; use three capital letters, e.g. EUR.");
         }
+        if (!Enum.IsDefined(options.ValuationCurveSource))
+        {
+            failures.Add($"Monitor:ValuationCurveSource: '{options.ValuationCurveSource}' is not a source; use BondQuotes or ParYields.");
+        }
         if (!Enum.IsDefined(options.BaseCurveModel))
         {
             failures.Add($"Monitor:BaseCurveModel: '{options.BaseCurveModel}' is not a model; use NelsonSiegel or Svensson.");

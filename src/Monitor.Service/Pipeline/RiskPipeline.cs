@@ -288,7 +288,7 @@ public sealed partial class RiskPipeline
             if (outcome.Accepted)
             {
                 batch.Add(ExposureLogKinds.CurveFitted, cause.EventTime, logCause, payload);
-                messages.Add(EventMapper.CurveFitted(outcome, CurveKeyLabel.Of(outcome.CurveKey) == CurveKeyLabel.Government ? null : CurveKeyLabel.Government, cause, now));
+                messages.Add(EventMapper.CurveFitted(outcome, CurveKeyLabel.Of(outcome.CurveKey) == CurveKeyLabel.Government || CurveKeyLabel.IsReference(outcome.CurveKey) ? null : CurveKeyLabel.Government, cause, now));
             }
             else
             {
