@@ -35,6 +35,10 @@ public sealed class DemoRunTests(DemoRunFixture run) : IClassFixture<DemoRunFixt
         var clear = Assert.Single(changes, c => c.Kind == StatusChangeKind.Clear && c.Message.LimitId == "rates-curve-dv01");
         Assert.Equal("breach", clear.Message.PreviousStatus);
         Assert.Equal(DemoScenario.At(DemoScenario.Trades[3].At), clear.Message.EventTime);
+        // The officer reads the trade's id, not an internal message type (issue 11).
+        Assert.Equal($"after trade {DemoScenario.Trades[2].TradeId}", breach.Cause);
+        Assert.Contains($"after trade {DemoScenario.Trades[3].TradeId}", run.Output, StringComparison.Ordinal);
+        Assert.DoesNotContain("TradeBooked", run.Output, StringComparison.Ordinal);
     }
 
     [Fact]

@@ -47,7 +47,7 @@ public sealed class RiskEngineMarketTests
     public void A_spread_group_with_too_few_bonds_is_rejected_without_stopping_the_other_curves()
     {
         // UTIL-A has three bonds in the example market; a Nelson-Siegel spread curve needs four (fact of the model:
-        // four parameters). The rejection is reported; the government and INDU-BBB curves are still published.
+        // four parameters). The rejection is reported; the government and INDUSTRIAL-BBB curves are still published.
         var engine = TestMarket.Engine();
         foreach (var quote in TestMarket.OpenQuotes())
         {
@@ -58,7 +58,7 @@ public sealed class RiskEngineMarketTests
         var util = Assert.Single(result.Curves, c => c.CurveKey == "UTIL-A");
         Assert.False(util.Accepted);
         Assert.Contains(util.Verdict.Reasons, r => r.Contains("4", StringComparison.Ordinal));
-        Assert.True(Assert.Single(result.Curves, c => c.CurveKey == "INDU-BBB").Accepted);
+        Assert.True(Assert.Single(result.Curves, c => c.CurveKey == "INDUSTRIAL-BBB").Accepted);
         Assert.Contains("CREDIT-IG", result.BooksAwaitingCurves);
         Assert.Empty(engine.DirtyCurves());
     }
