@@ -91,22 +91,22 @@ public sealed class RiskEngineProvisionalTests
     public void Books_leave_provisional_figures_when_their_spread_curve_fits()
     {
         var engine = TestMarket.Engine();
-        foreach (var quote in TestMarket.OpenQuotes().Where(q => !q.InstrumentId.StartsWith("BRS", StringComparison.Ordinal) && !q.InstrumentId.StartsWith("KST", StringComparison.Ordinal)))
+        foreach (var quote in TestMarket.OpenQuotes().Where(q => !q.InstrumentId.StartsWith("BHS", StringComparison.Ordinal) && !q.InstrumentId.StartsWith("KWS", StringComparison.Ordinal)))
         {
             engine.AcceptQuote(quote, TestMarket.Now);
         }
         engine.RefitDirtyCurves(TestMarket.Now);
-        Assert.Contains(engine.Books["CREDIT-IG"].ProvisionalReasons, r => r.Contains("BRS-2032-06", StringComparison.Ordinal) && r.Contains("no quote or trade price", StringComparison.Ordinal));
+        Assert.Contains(engine.Books["CREDIT-IG"].ProvisionalReasons, r => r.Contains("BHS-2032-06", StringComparison.Ordinal) && r.Contains("no quote or trade price", StringComparison.Ordinal));
 
-        foreach (var quote in TestMarket.OpenQuotes().Where(q => q.InstrumentId.StartsWith("BRS", StringComparison.Ordinal) || q.InstrumentId.StartsWith("KST", StringComparison.Ordinal)))
+        foreach (var quote in TestMarket.OpenQuotes().Where(q => q.InstrumentId.StartsWith("BHS", StringComparison.Ordinal) || q.InstrumentId.StartsWith("KWS", StringComparison.Ordinal)))
         {
             engine.AcceptQuote(quote, TestMarket.Now);
         }
         var refit = engine.RefitDirtyCurves(TestMarket.Now);
 
-        Assert.True(Assert.Single(refit.Curves, c => c.CurveKey == "INDU-BBB").Accepted);
+        Assert.True(Assert.Single(refit.Curves, c => c.CurveKey == "INDUSTRIAL-BBB").Accepted);
         var reasons = engine.Books["CREDIT-IG"].ProvisionalReasons;
-        Assert.DoesNotContain(reasons, r => r.Contains("INDU-BBB", StringComparison.Ordinal));
+        Assert.DoesNotContain(reasons, r => r.Contains("INDUSTRIAL-BBB", StringComparison.Ordinal));
         Assert.All(reasons, r => Assert.Contains("UTIL-A", r, StringComparison.Ordinal)); // still no UTIL-A curve
     }
 
