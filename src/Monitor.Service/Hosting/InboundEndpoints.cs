@@ -1,5 +1,6 @@
 using System.Net.Mime;
 using MassTransit;
+using MassTransit.Configuration;
 using Monitor.Service.Consumers;
 using Monitor.Service.Messaging;
 
@@ -43,7 +44,9 @@ public static class InboundEndpoints
         cfg.ReceiveEndpoint(queue, e =>
         {
             // Plain JSON is accepted beside MassTransit's envelope; a message without a content type is read as plain JSON.
-            e.UseRawJsonDeserializer(RawSerializerOptions.AnyMessageType, isDefault: false);
+            // Both deserializers refuse a body above Transport:MaxMessageBytes before they parse it (SizeCheckedDeserializer).
+            e.AddDeserializer(new SizeCheckedSerializerFactory(new SystemTextJsonMessageSerializerFactory(), transport.MaxMessageBytes));
+            e.AddDeserializer(new SizeCheckedSerializerFactory(new SystemTextJsonRawMessageSerializerFactory(RawSerializerOptions.AnyMessageType), transport.MaxMessageBytes));
             e.DefaultContentType = new ContentType("application/json");
             e.ConcurrentMessageLimit = transport.ConcurrentMessageLimit;
             // Storage failures never reach this policy: the pipeline holds a failing write (Storage/StorageFaultGate) until it

@@ -1,7 +1,9 @@
 using MassTransit;
 using Microsoft.Extensions.Configuration;
 using Microsoft.Extensions.DependencyInjection;
+using Microsoft.Extensions.DependencyInjection.Extensions;
 using Microsoft.Extensions.Diagnostics.HealthChecks;
+using Microsoft.Extensions.Logging;
 using Microsoft.Extensions.Options;
 using Monitor.Service.Audit;
 using Monitor.Service.Engine;
@@ -53,6 +55,7 @@ public static class ServiceRegistration
                     journal.Folder = log.Value.Folder.TrimEnd('/', '\\') + "-journal";
                 }
             });
+        AddRetention(services, configuration);
         services.AddSingleton(sp => EngineRecovery.Start(
             EngineFactory.Create(sp.GetRequiredService<IOptions<MonitorOptions>>().Value, sp.GetRequiredService<TimeProvider>())
                 .ContinuingCurveVersions(LoggedCurveVersions.Read(sp.GetRequiredService<IOptions<ExposureLogOptions>>().Value.Folder)),
@@ -70,6 +73,7 @@ public static class ServiceRegistration
         var transport = configuration.GetSection(TransportOptions.SectionName).Get<TransportOptions>() ?? new TransportOptions();
         addBus(services, bus =>
         {
+            UsageReportingOff.Apply(bus);
             InboundEndpoints.AddConsumers(bus);
             extraConsumers?.Invoke(bus);
             if (transport.Kind == TransportKind.RabbitMq)
@@ -77,6 +81,7 @@ public static class ServiceRegistration
                 bus.UsingRabbitMq((context, cfg) =>
                 {
                     BrokerConnection.Configure(cfg, transport.Broker);
+                    ErrorQueueLimits.Configure(cfg, transport);
                     InboundEndpoints.Configure(context, cfg, transport);
                     cfg.ConfigureEndpoints(context);
                 });
@@ -107,6 +112,7 @@ public static class ServiceRegistration
         // Hosted services stop in reverse order, the bus last: the outbox drains while the broker is still connected.
         services.AddHostedService(sp => sp.GetRequiredService<EventOutbox>());
         services.AddHostedService<StartOfDayService>();
+        services.AddHostedService<RetentionAtStart>();
         services.AddHostedService<CurveRefitWorker>();
         services.AddHostedService<SnapshotWorker>();
         services.AddHostedService<LimitsFileWatcher>();
@@ -126,6 +132,29 @@ public static class ServiceRegistration
             publisher.Timeout = TimeSpan.FromSeconds(10);
         });
         return services;
+    }
+
+    /// <summary>Retention of the day files (Storage/DayFileRetention): options, the closed-day evidence (replaceable), the archiver.</summary>
+    private static void AddRetention(IServiceCollection services, IConfiguration configuration)
+    {
+        services.AddOptions<RetentionOptions>().Bind(configuration.GetSection(RetentionOptions.SectionName))
+            .PostConfigure<IOptions<ExposureLogOptions>>((retention, log) =>
+            {
+                if (string.IsNullOrWhiteSpace(retention.ArchiveFolder) && !string.IsNullOrWhiteSpace(log.Value.Folder))
+                {
+                    retention.ArchiveFolder = log.Value.Folder.TrimEnd('/', '\\') + "-archive";
+                }
+            })
+            .ValidateOnStart();
+        services.AddSingleton<IValidateOptions<RetentionOptions>>(sp => new RetentionOptionsValidator(() =>
+            (sp.GetRequiredService<IOptions<ExposureLogOptions>>().Value.Folder, sp.GetRequiredService<IOptions<JournalOptions>>().Value.Folder)));
+        services.TryAddSingleton<IClosedDays>(sp => new DayEndRecordClosedDays(sp.GetRequiredService<IOptions<ExposureLogOptions>>().Value.Folder));
+        services.AddSingleton(sp => new DayFileRetention(
+            sp.GetRequiredService<IOptions<RetentionOptions>>().Value,
+            sp.GetRequiredService<IOptions<ExposureLogOptions>>().Value.Folder,
+            sp.GetRequiredService<IOptions<JournalOptions>>().Value.Folder,
+            sp.GetRequiredService<IClosedDays>(),
+            sp.GetRequiredService<ILogger<DayFileRetention>>()));
     }
 
     private static void TryAddTimeProvider(this IServiceCollection services)
