@@ -26,6 +26,8 @@ public class ContractSurfaceTests
           required DateTimeOffset ComputedAt
           required IReadOnlyList<CurveVersion> Curves
           required IReadOnlyDictionary<String, Double> Measures
+          Boolean Provisional
+          IReadOnlyList<String>? ProvisionalReasons
         record Monitor.Contracts.V1.CurveFitted
           required DateTimeOffset AsOf
           String? BaseCurveId
@@ -97,6 +99,8 @@ public class ContractSurfaceTests
           required String Measure
           required String PreviousStatus
           required DateTimeOffset ProcessedAt
+          Boolean Provisional
+          IReadOnlyList<String>? ProvisionalReasons
           required String Scope
           required String ScopeId
           required String Status

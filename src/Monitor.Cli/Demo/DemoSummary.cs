@@ -36,7 +36,11 @@ internal static class DemoSummary
         output.WriteLine($"  {"book",-12} {"value",14} {"DV01",10} {"level",10} {"slope",10} {"curvature",10} {"spread lvl",10} {"limit use",9}");
         foreach (var b in outcome.Final.Books)
         {
-            output.WriteLine($"  {b.Book,-12} {DemoFormat.Money(b.Value),14} {DemoFormat.Money(b.Dv01),10} {DemoFormat.Money(b.BaseLevel),10} {DemoFormat.Money(b.BaseSlope),10} {DemoFormat.Money(b.BaseCurvature),10} {DemoFormat.Money(b.SpreadLevel),10} {DemoFormat.Percent(b.MaxUse),9}");
+            output.WriteLine($"  {b.Book,-12} {DemoFormat.Money(b.Value),14} {DemoFormat.Money(b.Dv01),10} {DemoFormat.Money(b.BaseLevel),10} {DemoFormat.Money(b.BaseSlope),10} {DemoFormat.Money(b.BaseCurvature),10} {DemoFormat.Money(b.SpreadLevel),10} {DemoFormat.Percent(b.MaxUse),9}{b.Mark}");
+        }
+        if (outcome.Final.Books.Any(b => b.Provisional))
+        {
+            output.WriteLine("  " + BookRow.ProvisionalLegend);
         }
         output.WriteLine("Limits at the close:");
         // Columns as wide as their longest entry, so a long spread group name does not push the figures out of line.

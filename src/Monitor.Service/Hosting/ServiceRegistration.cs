@@ -73,7 +73,8 @@ public static class ServiceRegistration
         // One writer per folder: taken before the journal is replayed or either folder written, held until disposal.
         services.AddSingleton(sp => new WriterLocks(sp.GetRequiredService<IOptions<ExposureLogOptions>>().Value.Folder, sp.GetRequiredService<IOptions<JournalOptions>>().Value.Folder));
         services.AddSingleton(sp => AfterWriterLocks(sp, () => EngineRecovery.Start(
-            EngineFactory.Create(sp.GetRequiredService<IOptions<MonitorOptions>>().Value, sp.GetRequiredService<TimeProvider>()),
+            EngineFactory.Create(sp.GetRequiredService<IOptions<MonitorOptions>>().Value, sp.GetRequiredService<TimeProvider>())
+                .ContinuingCurveVersions(LoggedCurveVersions.Read(sp.GetRequiredService<IOptions<ExposureLogOptions>>().Value.Folder)),
             sp.GetRequiredService<RecordKey>(),
             sp.GetRequiredService<IOptions<JournalOptions>>().Value,
             sp.GetRequiredService<IOptions<ExposureLogOptions>>().Value,

@@ -295,7 +295,9 @@ public sealed partial class RiskPipeline
             var batch = new ExposureLogBatch();
             foreach (var book in _engine.Books.Values.Where(b => b.Exposures is not null).OrderBy(b => b.Id, StringComparer.Ordinal))
             {
-                batch.Add(kind, now, new ExposureLogCause(null, "timer"), BookPayload(book.Id, book.Exposures!.Totals, curves));
+                var payload = BookPayload(book.Id, book.Exposures!.Totals, curves);
+                AddProvisional(payload, book.ProvisionalReasons);
+                batch.Add(kind, now, new ExposureLogCause(null, "timer"), payload);
             }
             await WriteLogAsync(batch, cancellationToken).ConfigureAwait(false);
         }
@@ -333,7 +335,7 @@ public sealed partial class RiskPipeline
             if (outcome.Accepted)
             {
                 batch.Add(ExposureLogKinds.CurveFitted, cause.EventTime, logCause, payload);
-                messages.Add(EventMapper.CurveFitted(outcome, CurveKeyLabel.Of(outcome.CurveKey) == CurveKeyLabel.Government ? null : CurveKeyLabel.Government, cause, now));
+                messages.Add(EventMapper.CurveFitted(outcome, CurveKeyLabel.Of(outcome.CurveKey) == CurveKeyLabel.Government || CurveKeyLabel.IsReference(outcome.CurveKey) ? null : CurveKeyLabel.Government, cause, now));
             }
             else
             {
@@ -357,8 +359,10 @@ public sealed partial class RiskPipeline
                 ["utilisation"] = change.Utilisation,
                 ["curves"] = result.CurvesUsed,
             };
+            var provisional = _engine.ProvisionalReasons(change.Scope);
+            AddProvisional(payload, provisional);
             batch.Add(ExposureLogKinds.StatusChange, cause.EventTime, logCause, payload);
-            messages.Add(EventMapper.StatusChanged(change, curves, cause, now));
+            messages.Add(EventMapper.StatusChanged(change, curves, cause, now, provisional));
             _metrics.StatusChanges.Add(1);
         }
         // One fsync for the change's records, all on the disk before any of its events can be published.
@@ -389,6 +393,16 @@ public sealed partial class RiskPipeline
             var started = Stopwatch.GetTimestamp();
             await _storage.RunAsync(StorageFaultGate.ExposureLog, () => _log.Append(batch), cancellationToken).ConfigureAwait(false);
             _metrics.LogWriteDuration.Record(Stopwatch.GetElapsedTime(started).TotalMilliseconds);
+        }
+    }
+
+    /// <summary>Marks a record built on provisional figures (members absent otherwise, so final records keep their shape).</summary>
+    private static void AddProvisional(Dictionary<string, object?> payload, IReadOnlyList<string> reasons)
+    {
+        if (reasons.Count > 0)
+        {
+            payload["provisional"] = true;
+            payload["provisionalReasons"] = reasons.ToArray();
         }
     }
 

@@ -1,6 +1,7 @@
 using Monitor.Analytics.Pricing;
 using Monitor.Limits;
 using Monitor.Service.Engine;
+using Monitor.Service.Hosting;
 using Monitor.Service.Tests.Support;
 
 namespace Monitor.Service.Tests.Engine;
@@ -92,9 +93,11 @@ public sealed class RiskEngineMarketTests
     }
 
     [Fact]
-    public void Par_yields_fit_the_government_curve_and_revalue_books()
+    public void Par_yields_configured_as_the_valuation_source_fit_the_government_curve_and_revalue_books()
     {
-        var engine = TestMarket.Engine();
+        var options = TestMarket.Options();
+        options.ValuationCurveSource = ValuationCurveSource.ParYields;
+        var engine = EngineFactory.Create(options, new ManualClock(TestMarket.Now));
         var points = Monitor.Files.ParYieldFile.Read(TestMarket.Data("par-yields.csv")).Single().Points
             .Select(p => (Monitor.Analytics.Fitting.ParYieldCurveFitter.TenorLabel(p.TenorYears), p.ParYield!.Value)).ToArray();
 
@@ -106,6 +109,37 @@ public sealed class RiskEngineMarketTests
         // semiannual; Fabozzi, Bond Markets, 8th ed., ch. 5) to within the gate's 5 bp RMSE.
         Assert.Equal(0.03958, Monitor.Analytics.Curves.ParYield.Compute(curve, 10.0), 0.0005);
         Assert.Contains(result.Books, b => b.Book == "RATES-CORE");
+
+        // Government bond quotes then fit their own reference curve: the valuation curve does not flip back to them.
+        foreach (var quote in TestMarket.OpenQuotes().Where(q => q.InstrumentId.StartsWith("VGB", StringComparison.Ordinal)))
+        {
+            engine.AcceptQuote(quote, TestMarket.Now);
+        }
+        var bonds = engine.RefitDirtyCurves(TestMarket.Now);
+        Assert.Equal(CurveKeyLabel.GovernmentBonds, Assert.Single(bonds.Curves, c => c.Accepted).CurveKey);
+        Assert.Same(curve, engine.Curves[CurveKeyLabel.KeyOf(CurveKeyLabel.Government)].Curve);
+        Assert.Empty(bonds.Books);
+    }
+
+    [Fact]
+    public void Par_yields_fit_their_own_reference_curve_and_leave_the_bond_fitted_valuation_curve_alone()
+    {
+        var engine = TestMarket.OpenedEngine();
+        var government = engine.Curves[CurveKeyLabel.KeyOf(CurveKeyLabel.Government)];
+        var (fitted, version) = (government.Current, government.Version);
+        var points = Monitor.Files.ParYieldFile.Read(TestMarket.Data("par-yields.csv")).Single().Points
+            .Select(p => (Monitor.Analytics.Fitting.ParYieldCurveFitter.TenorLabel(p.TenorYears), p.ParYield!.Value)).ToArray();
+
+        var result = engine.ApplyParYields(CurveKeyLabel.Government, TestMarket.Now, points, TestMarket.Now);
+
+        var outcome = Assert.Single(result.Curves);
+        Assert.True(outcome.Accepted);
+        Assert.Equal(CurveKeyLabel.GovernmentPar, outcome.CurveKey);
+        Assert.Equal(1, engine.Reference.Version);
+        Assert.Same(fitted, government.Current); // the valuation curve did not flip to the par-yield fit
+        Assert.Equal(version, government.Version);
+        Assert.Empty(result.Books);
+        Assert.DoesNotContain(CurveKeyLabel.GovernmentPar, engine.CurvesInUse(), StringComparison.Ordinal);
     }
 
     [Theory]

@@ -69,6 +69,28 @@ public sealed class StartupValidationTests : IDisposable
     }
 
     [Fact]
+    public async Task A_bond_in_another_currency_in_the_instruments_file_stops_the_start_with_file_line_and_value()
+    {
+        var instruments = _folder.Combine("instruments.csv");
+        File.WriteAllText(instruments, File.ReadAllText(TestMarket.Data("instruments.csv")).Replace("VGB-2027-11,Republic of Veloria,,XTS", "VGB-2027-11,Republic of Veloria,,EUR", StringComparison.Ordinal));
+        var line = Array.FindIndex(File.ReadAllLines(instruments), l => l.StartsWith("VGB-2027-11,", StringComparison.Ordinal)) + 1;
+
+        var ex = await StartFails(s => s["Monitor:InstrumentsFile"] = instruments);
+
+        Assert.Contains("Monitor:InstrumentsFile", ex.Message, StringComparison.Ordinal);
+        Assert.Contains($"instruments.csv, line {line}, column 'currency'", ex.Message, StringComparison.Ordinal);
+        Assert.Contains("currency", ex.Message, StringComparison.Ordinal);
+        Assert.Contains("'EUR'", ex.Message, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public async Task A_reporting_currency_that_is_not_a_code_names_the_key()
+    {
+        var ex = await StartFails(s => s["Monitor:ReportingCurrency"] = "euro");
+        Assert.Contains("Monitor:ReportingCurrency", ex.Message, StringComparison.Ordinal);
+    }
+
+    [Fact]
     public async Task A_blank_exposure_log_folder_names_the_key()
     {
         var ex = await StartFails(s => s["ExposureLog:Folder"] = " ");

@@ -144,7 +144,7 @@ public sealed class PipelineScenarioTests : IDisposable
     }
 
     [Fact]
-    public async Task Par_yields_refit_the_government_curve()
+    public async Task Par_yields_fit_their_own_reference_curve_and_move_no_figures()
     {
         await using var service = await ServiceUnderTest.StartAsync();
         await ServiceUnderTest.WaitUntilAsync(() => service.Harness.Published.Select<CurveFitted>().Any(), "opening fit");
@@ -154,8 +154,14 @@ public sealed class PipelineScenarioTests : IDisposable
         await service.Harness.Bus.Publish(new ParYieldsPublished { CurveId = "government", AsOf = TestMarket.Now, Points = points, Source = "test" });
 
         Assert.True(await service.Harness.Consumed.Any<ParYieldsPublished>());
-        await ServiceUnderTest.WaitUntilAsync(() => service.Harness.Published.Select<CurveFitted>().Any(x => x.Context.Message.Version == 2 && x.Context.Message.CurveId == CurveKeyLabel.Government), "par-yield fit");
-        Assert.True(await service.Harness.Published.Any<BookExposuresBatch>(x => x.Context.Message.Books.Any(b => b.CauseMessageType == nameof(ParYieldsPublished))));
+        await ServiceUnderTest.WaitUntilAsync(() => service.Harness.Published.Select<CurveFitted>().Any(x => x.Context.Message.CurveId == CurveKeyLabel.GovernmentPar), "par-yield fit");
+        await service.Pipeline.WhenPublishedAsync();
+        var par = service.Harness.Published.Select<CurveFitted>().Select(x => x.Context.Message).Single(m => m.CurveId == CurveKeyLabel.GovernmentPar);
+        Assert.Equal(1, par.Version);
+        Assert.Null(par.BaseCurveId);
+        // The valuation curve stays the bond-fitted one: no second government version, no book figures from par yields.
+        Assert.DoesNotContain(service.Harness.Published.Select<CurveFitted>(), x => x.Context.Message.CurveId == CurveKeyLabel.Government && x.Context.Message.Version > 1);
+        Assert.DoesNotContain(service.Harness.Published.Select<BookExposuresBatch>(), x => x.Context.Message.Books.Any(b => b.CauseMessageType == nameof(ParYieldsPublished)));
     }
 
     [Fact]
