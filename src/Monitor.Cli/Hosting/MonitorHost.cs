@@ -4,6 +4,7 @@ using Microsoft.Extensions.DependencyInjection;
 using Microsoft.Extensions.Hosting;
 using Microsoft.Extensions.Options;
 using Monitor.Service.Audit;
+using Monitor.Service.Consumers;
 using Monitor.Service.Hosting;
 using Serilog;
 
@@ -30,11 +31,13 @@ internal static class MonitorHost
         {
             if (configuration.GetSection("Serilog").Exists())
             {
-                logger.ReadFrom.Configuration(configuration).ReadFrom.Services(services);
+                logger.ReadFrom.Configuration(configuration).ReadFrom.Services(services).Filter.With(new RefusalLogEvents());
             }
             else
             {
                 logger.MinimumLevel.Information()
+                    // A refused message is one Warning line of the service's; MassTransit's own Error line with the stack is dropped.
+                    .Filter.With(new RefusalLogEvents())
                     .MinimumLevel.Override("MassTransit", Serilog.Events.LogEventLevel.Warning)
                     // HealthStatusFilePublisher logs each change of health; the check service would log every failing run.
                     .MinimumLevel.Override("Microsoft.Extensions.Diagnostics.HealthChecks", Serilog.Events.LogEventLevel.Fatal)
@@ -90,7 +93,7 @@ internal static class MonitorHost
         var builder = Host.CreateApplicationBuilder(new HostApplicationBuilderSettings { DisableDefaults = true });
         builder.Configuration.AddInMemoryCollection(settings);
         // A logger of this host's own (not the static Log.Logger): several hosts may share a process (tests).
-        var logger = new LoggerConfiguration();
+        var logger = new LoggerConfiguration().Filter.With(new RefusalLogEvents());
         configureLogging(logger);
         builder.Services.AddSerilog(logger.CreateLogger(), dispose: true);
         configureServices(builder.Services);

@@ -509,7 +509,8 @@ public sealed class RiskEngine
         }
         catch (ArgumentException ex)
         {
-            throw new MessageRejectedException(quote.CleanMid is null ? "yield" : "midCleanPrice", (quote.CleanMid ?? quote.Yield)?.ToString("G", CultureInfo.InvariantCulture), ex.Message);
+            throw new MessageRejectedException(quote.CleanMid is null ? "yield" : "midCleanPrice", (quote.CleanMid ?? quote.Yield)?.ToString("G", CultureInfo.InvariantCulture),
+                RefusalText.Plain(ex, new Dictionary<string, string>(StringComparer.Ordinal)));
         }
         return new PricedQuote(quote, bond, settlement, priced.CleanPrice, priced.DirtyPrice, priced.Yield, priced.ModifiedDuration, priced.Times, priced.Amounts);
     }

@@ -1,5 +1,8 @@
 using System.Net.Mime;
 using MassTransit;
+using Microsoft.Extensions.DependencyInjection;
+using Microsoft.Extensions.Logging;
+using Monitor.Contracts.V1;
 using Monitor.Service.Consumers;
 using Monitor.Service.Messaging;
 
@@ -31,19 +34,22 @@ public static class InboundEndpoints
         ArgumentNullException.ThrowIfNull(cfg);
         // Lets .NET producers on this bus send plain JSON too (content type application/json); the default stays the envelope.
         cfg.AddRawJsonSerializer(RawSerializerOptions.AnyMessageType);
-        Endpoint<InstrumentDefinedConsumer>(context, cfg, Instruments, transport);
-        Endpoint<BondQuotedConsumer>(context, cfg, Quotes, transport);
-        Endpoint<TradeBookedConsumer>(context, cfg, Trades, transport);
-        Endpoint<ParYieldsPublishedConsumer>(context, cfg, ParYields, transport);
+        Endpoint<InstrumentDefinedConsumer, InstrumentDefined>(context, cfg, Instruments, transport);
+        Endpoint<BondQuotedConsumer, BondQuoted>(context, cfg, Quotes, transport);
+        Endpoint<TradeBookedConsumer, TradeBooked>(context, cfg, Trades, transport);
+        Endpoint<ParYieldsPublishedConsumer, ParYieldsPublished>(context, cfg, ParYields, transport);
     }
 
-    private static void Endpoint<TConsumer>(IBusRegistrationContext context, IBusFactoryConfigurator cfg, string queue, TransportOptions transport)
-        where TConsumer : class, IConsumer
+    private static void Endpoint<TConsumer, TMessage>(IBusRegistrationContext context, IBusFactoryConfigurator cfg, string queue, TransportOptions transport)
+        where TConsumer : class, IConsumer<TMessage>
+        where TMessage : class
     {
+        var refusals = context.GetRequiredService<ILoggerFactory>().CreateLogger(RefusalLogEvents.Category);
         cfg.ReceiveEndpoint(queue, e =>
         {
             // Plain JSON is accepted beside MassTransit's envelope; a message without a content type is read as plain JSON.
-            e.UseRawJsonDeserializer(RawSerializerOptions.AnyMessageType, isDefault: false);
+            // MassTransit's raw JSON deserializer, whose failures on a body that is not JSON become refusals naming a field.
+            e.AddDeserializer(new RefusingJsonDeserializer<TMessage>(refusals), isDefault: false);
             e.DefaultContentType = new ContentType("application/json");
             e.ConcurrentMessageLimit = transport.ConcurrentMessageLimit;
             // Storage failures never reach this policy: the pipeline holds a failing write (Storage/StorageFaultGate) until it
@@ -56,6 +62,8 @@ public static class InboundEndpoints
                 r.Ignore<System.Text.Json.JsonException>();
                 r.Intervals(100, 500, 2000);
             });
+            // Inside the retry: an unreadable body becomes a refusal naming the field, and each refusal is logged once.
+            e.UseFilter(new RefusalFilter(typeof(TMessage), refusals));
             e.ConfigureConsumer<TConsumer>(context);
         });
     }
