@@ -66,14 +66,22 @@ public sealed class ServiceUnderTest : IAsyncDisposable
     /// <param name="limitsFile">A limits file other than Data/limits.json.</param>
     /// <param name="logStream">Wraps each exposure-log day file's stream (to inject write failures).</param>
     /// <param name="root">A folder the caller keeps (to restart a service on the same log and journal); default a new temporary one.</param>
-    public static async Task<ServiceUnderTest> StartAsync(string? limitsFile = null, Func<Stream, Stream>? logStream = null, string? root = null)
+    /// <param name="logging">Replaces the default logging (e.g. a Serilog logger with a capturing sink).</param>
+    public static async Task<ServiceUnderTest> StartAsync(string? limitsFile = null, Func<Stream, Stream>? logStream = null, string? root = null, Action<IServiceCollection>? logging = null)
     {
         var folder = root is null ? new TempFolder() : null;
         var logFolder = Path.Combine(root ?? folder!.Path, "exposure-log");
         var configuration = new ConfigurationBuilder().AddInMemoryCollection(Settings(logFolder, limitsFile)).Build();
         var time = new FakeTimeProvider(TestMarket.Now);
         var services = new ServiceCollection();
-        services.AddLogging();
+        if (logging is null)
+        {
+            services.AddLogging();
+        }
+        else
+        {
+            logging(services);
+        }
         services.AddSingleton<TimeProvider>(time);
         services.AddMonitorServiceCore(configuration, null, static (s, bus) => s.AddMassTransitTestHarness(bus));
         if (logStream is not null)
