@@ -6,6 +6,8 @@ using Microsoft.Extensions.Options;
 using Monitor.Service.Audit;
 using Monitor.Service.Consumers;
 using Monitor.Service.Hosting;
+using Monitor.Service.Journal;
+using Monitor.Service.Storage;
 using Serilog;
 
 namespace Monitor.Cli.Hosting;
@@ -27,8 +29,11 @@ internal static class MonitorHost
         builder.Configuration.AddJsonFile(Path.GetFullPath(configFile), optional: false, reloadOnChange: false);
         builder.Configuration.AddEnvironmentVariables();
         var configuration = builder.Configuration;
+        var brokerStart = new BrokerStartLogFilter();
+        builder.Services.AddSingleton(brokerStart);
         builder.Services.AddSerilog((services, logger) =>
         {
+            logger.Filter.With(brokerStart);
             if (configuration.GetSection("Serilog").Exists())
             {
                 logger.ReadFrom.Configuration(configuration).ReadFrom.Services(services).Filter.With(new RefusalLogEvents());
@@ -60,6 +65,9 @@ internal static class MonitorHost
         Read<MonitorOptions>(services, failures);
         Read<TransportOptions>(services, failures);
         Read<ExposureLogOptions>(services, failures);
+        Read<StorageOptions>(services, failures);
+        Read<HealthOptions>(services, failures);
+        Read<JournalOptions>(services, failures);
         if (failures.Count > 0)
         {
             throw new AggregateException(failures);
@@ -75,6 +83,11 @@ internal static class MonitorHost
         }
         catch (OptionsValidationException ex)
         {
+            failures.Add(ex);
+        }
+        catch (InvalidOperationException ex) when (ex.Message.StartsWith("Failed to convert configuration value", StringComparison.Ordinal))
+        {
+            // A word where a bool or a number goes: the binder's message names the key; StartupFailure turns it into the fix.
             failures.Add(ex);
         }
     }

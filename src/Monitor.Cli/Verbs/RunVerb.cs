@@ -27,6 +27,9 @@ internal static class RunVerb
         return command;
     }
 
+    private static IConfiguration ReadConfiguration(FileInfo configFile) =>
+        new ConfigurationBuilder().AddJsonFile(configFile.FullName, optional: false, reloadOnChange: false).AddEnvironmentVariables().Build();
+
     /// <summary>Runs the service from <paramref name="configFile"/> until <paramref name="cancellationToken"/> fires or the host is told to stop; configuration problems go to <paramref name="error"/>.</summary>
     public static async Task<int> RunAsync(FileInfo configFile, TextWriter error, CancellationToken cancellationToken)
     {
@@ -45,17 +48,30 @@ internal static class RunVerb
             await error.WriteLineAsync($"--config: '{configFile.FullName}' is not valid JSON: {ex.Message}").ConfigureAwait(false);
             return ConfigurationRefused;
         }
+        catch (InvalidOperationException ex) when (ConfigurationValueFix.Describe(ex, ReadConfiguration(configFile)) is { } problem)
+        {
+            // The transport section is read while the service is wired, before any validator runs.
+            await error.WriteLineAsync($"monitor run: the configuration in {configFile.FullName} was refused:").ConfigureAwait(false);
+            await error.WriteLineAsync($"  {problem}").ConfigureAwait(false);
+            return ConfigurationRefused;
+        }
         using (host)
         {
             var configuration = host.Services.GetRequiredService<IConfiguration>();
             try
             {
                 MonitorHost.ValidateOptions(host.Services);
+                host.Services.GetRequiredService<IHostApplicationLifetime>().ApplicationStarted.Register(host.Services.GetRequiredService<BrokerStartLogFilter>().Started);
                 await host.RunAsync(cancellationToken).ConfigureAwait(false);
                 return 0;
             }
             catch (Exception ex)
             {
+                if (BrokerStartFailure.Describe(ex, configuration) is { } broker)
+                {
+                    await error.WriteLineAsync(broker).ConfigureAwait(false);
+                    return ConfigurationRefused;
+                }
                 var problems = StartupFailure.ConfigurationProblems(ex, configuration);
                 if (problems.Count == 0)
                 {
