@@ -18,7 +18,7 @@ internal static class RunVerb
     {
         var config = new Option<FileInfo>("--config")
         {
-            Description = "Service configuration (JSON; sections Monitor, Transport, ExposureLog, Serilog). Environment variables override it: Transport__Kind=RabbitMq.",
+            Description = "Service configuration (JSON; sections Monitor, Transport, ExposureLog, Journal, Storage, Health, Serilog; every key in config/README.md). Environment variables override it: Transport__Kind=RabbitMq.",
             DefaultValueFactory = _ => new FileInfo(Path.Combine("config", "service.json")),
         };
         var command = new Command("run", "Run the monitor service on the transport the configuration names (InMemory or RabbitMq) until stopped.");

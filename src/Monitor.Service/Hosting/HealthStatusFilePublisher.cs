@@ -59,6 +59,8 @@ public sealed partial class HealthStatusFilePublisher(IOptions<HealthOptions> op
         var temporary = file + ".tmp";
         try
         {
+            // A missing folder (var/ on a fresh clone) is created.
+            Directory.CreateDirectory(Path.GetDirectoryName(Path.GetFullPath(file))!);
             File.WriteAllText(temporary, document.ToJsonString(Indented));
             File.Move(temporary, file, overwrite: true);
             _fileFailing = false;
