@@ -21,7 +21,8 @@ internal static class EntryPoint
     /// <summary>How long a verb has to stop after SIGTERM or Ctrl+C before the process ends anyway.</summary>
     public static readonly TimeSpan ShutdownAllowance = TimeSpan.FromSeconds(45);
 
-    private static IEnumerable<Command> Verbs()
+    /// <summary>Every verb, in help order (tests check their options).</summary>
+    internal static IEnumerable<Command> Verbs()
     {
         yield return VerifyLogVerb.Create();
         yield return RunVerb.Create();
@@ -29,6 +30,8 @@ internal static class EntryPoint
         yield return FitVerb.Create();
         yield return RiskVerb.Create();
         yield return ExplainVerb.Create();
+        yield return BondVerb.Create();
+        yield return CurveVerb.Create();
         yield return LoadVerb.Create();
     }
 }

@@ -15,6 +15,8 @@ public static class InstrumentFile
     private static readonly string[] Required =
         ["id", "issuer", "spread_group", "currency", "coupon_pct", "frequency", "day_count", "issue_date", "maturity_date", "settlement_lag"];
 
+    private static readonly string[] Optional = ["first_coupon_date", "face"];
+
     /// <summary>Bond field names (as validation errors give them) mapped to file columns.</summary>
     private static readonly Dictionary<string, string> ColumnOf = new(StringComparer.Ordinal)
     {
@@ -36,7 +38,7 @@ public static class InstrumentFile
     {
         var bonds = new List<Bond>();
         var seen = new HashSet<string>(StringComparer.Ordinal);
-        foreach (var row in CsvTable.Read(reader, fileName, Required))
+        foreach (var row in CsvTable.Read(reader, fileName, Required, Optional))
         {
             var id = row.RequiredText("id");
             if (!seen.Add(id))

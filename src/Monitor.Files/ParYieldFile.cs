@@ -6,7 +6,7 @@ namespace Monitor.Files;
 
 /// <summary>
 /// Par-yield points file (our format): <c>as_of,tenor,par_yield_pct</c>, tenor as 1M..30Y,
-/// par yields bond-equivalent in percent. A blank yield means "not published" and is skipped.
+/// par yields bond-equivalent in percent. A blank yield means "not published": the point is kept with no yield and the fit leaves it out.
 /// </summary>
 public static class ParYieldFile
 {
@@ -15,7 +15,7 @@ public static class ParYieldFile
     public static IReadOnlyList<ParYieldSet> Read(TextReader reader, string fileName)
     {
         var byDate = new SortedDictionary<DateOnly, List<ParYieldPoint>>();
-        foreach (var row in CsvTable.Read(reader, fileName, Required))
+        foreach (var row in CsvTable.Read(reader, fileName, Required, []))
         {
             var asOf = row.RequiredDate("as_of");
             var tenorText = row.RequiredText("tenor");
@@ -24,10 +24,6 @@ public static class ParYieldFile
                 throw row.Error("tenor", tenorText, "is not a tenor: use a count and M or Y, e.g. 3M, 2Y.");
             }
             var pct = row.OptionalNumber("par_yield_pct");
-            if (pct is null)
-            {
-                continue;
-            }
             if (pct < -20 || pct > 100)
             {
                 throw row.Error("par_yield_pct", row.Raw("par_yield_pct"), "is outside -20..100 percent.");
@@ -36,7 +32,7 @@ public static class ParYieldFile
             {
                 byDate[asOf] = points = [];
             }
-            points.Add(new ParYieldPoint(years, pct.Value / 100.0));
+            points.Add(new ParYieldPoint(years, pct / 100.0));
         }
         return byDate.Select(p => new ParYieldSet(p.Key, p.Value.OrderBy(x => x.TenorYears).ToArray())).ToArray();
     }

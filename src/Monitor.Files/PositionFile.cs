@@ -13,7 +13,7 @@ public static class PositionFile
     public static IReadOnlyList<PositionRecord> Read(TextReader reader, string fileName)
     {
         var positions = new List<PositionRecord>();
-        foreach (var row in CsvTable.Read(reader, fileName, Required))
+        foreach (var row in CsvTable.Read(reader, fileName, Required, []))
         {
             var face = row.RequiredNumber("face_amount");
             positions.Add(new PositionRecord(row.RequiredText("book"), row.RequiredText("instrument_id"), face));

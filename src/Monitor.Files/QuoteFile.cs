@@ -12,10 +12,12 @@ public static class QuoteFile
 {
     private static readonly string[] Required = ["instrument_id", "quote_time"];
 
+    private static readonly string[] Optional = ["bid", "ask", "mid", "yield_pct", "source"];
+
     public static IReadOnlyList<BondQuote> Read(TextReader reader, string fileName)
     {
         var quotes = new List<BondQuote>();
-        foreach (var row in CsvTable.Read(reader, fileName, Required))
+        foreach (var row in CsvTable.Read(reader, fileName, Required, Optional))
         {
             var id = row.RequiredText("instrument_id");
             var time = row.RequiredTimestamp("quote_time");

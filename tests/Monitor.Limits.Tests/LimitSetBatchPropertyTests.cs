@@ -18,7 +18,7 @@ public class LimitSetBatchPropertyTests
 {
     private static readonly DateTimeOffset Now = new(2026, 12, 2, 10, 0, 0, TimeSpan.Zero);
     private static readonly ExposureMeasure[] Measures = [ExposureMeasure.MarketValue, ExposureMeasure.Dv01, ExposureMeasure.SpreadLevel];
-    private static readonly string[] Groups = ["INDU-A", "UTIL-BBB"];
+    private static readonly string[] Groups = ["INDUSTRIAL-A", "UTIL-BBB"];
 
     [Property(MaxTest = 60)]
     public Property Batches_give_the_changes_statuses_and_sums_of_the_straightforward_rule() =>

@@ -22,7 +22,7 @@ internal static class DemoFormat
 
     public static string Duration(TimeSpan span) => span.ToString(@"h\:mm", Invariant);
 
-    /// <summary>One line for a status change: time, kind, limit, exposure against the bound, use, previous status, cause.</summary>
+    /// <summary>One line for a status change: time, kind, limit, exposure against the bound, use, previous status, the cause in words.</summary>
     public static string StatusLine(ObservedStatusChange change)
     {
         ArgumentNullException.ThrowIfNull(change);
@@ -34,6 +34,6 @@ internal static class DemoFormat
             _ => "CLEAR  ",
         };
         return string.Create(Invariant,
-            $"{Clock(m.EventTime)}  {kind}  {m.LimitId} ({m.Scope} {m.ScopeId}, {m.Measure}): {Money(m.Exposure)} of {Money(m.Limit)} = {Percent(m.Utilisation)}, {m.PreviousStatus} -> {m.Status}, caused by {m.CauseMessageType}");
+            $"{Clock(m.EventTime)}  {kind}  {m.LimitId} ({m.Scope} {m.ScopeId}, {m.Measure}): {Money(m.Exposure)} of {Money(m.Limit)} = {Percent(m.Utilisation)}, {m.PreviousStatus} -> {m.Status}, {change.Cause}");
     }
 }

@@ -12,6 +12,8 @@ internal sealed class DemoRecorder
     private readonly Lock _lock = new();
     private readonly List<ObservedStatusChange> _changes = [];
     private readonly List<CurveRejected> _rejections = [];
+    private readonly Dictionary<Guid, string> _tradeByMessageId = [];
+    private readonly List<string> _leftOut = [];
     private int _quotes;
     private int _trades;
     private int _fits;
@@ -33,13 +35,46 @@ internal sealed class DemoRecorder
 
     public void QuoteSent() => Interlocked.Increment(ref _quotes);
 
-    public void TradeSent() => Interlocked.Increment(ref _trades);
+    /// <summary>Records a trade before it is sent, so a status change it causes can name it.</summary>
+    public void TradeSent(Guid messageId, string tradeId)
+    {
+        lock (_lock)
+        {
+            _tradeByMessageId[messageId] = tradeId;
+        }
+        Interlocked.Increment(ref _trades);
+    }
+
+    /// <summary>Quotes the accepted fits left out as outliers, newest last ("VGB-2041-05 at 12:00: outlier: residual ...").</summary>
+    public IReadOnlyList<string> LeftOut()
+    {
+        lock (_lock)
+        {
+            return _leftOut.ToArray();
+        }
+    }
+
+    private string? TradeOf(Guid messageId)
+    {
+        lock (_lock)
+        {
+            return _tradeByMessageId.GetValueOrDefault(messageId);
+        }
+    }
 
     public void Fitted(CurveFitted message)
     {
         ArgumentNullException.ThrowIfNull(message);
         Interlocked.Increment(ref _fits);
-        Interlocked.Add(ref _outliers, message.Fit.Excluded.Count(e => e.Reason.Contains("Outlier", StringComparison.OrdinalIgnoreCase)));
+        var outliers = message.Fit.Excluded.Where(e => e.Reason.Contains("Outlier", StringComparison.OrdinalIgnoreCase)).ToArray();
+        Interlocked.Add(ref _outliers, outliers.Length);
+        if (outliers.Length > 0)
+        {
+            lock (_lock)
+            {
+                _leftOut.AddRange(outliers.Select(e => $"{e.QuoteId} at {DemoFormat.Clock(message.AsOf)} ({message.CurveId}): {e.Reason}"));
+            }
+        }
         Touch();
     }
 
@@ -55,7 +90,7 @@ internal sealed class DemoRecorder
 
     public void Changed(LimitStatusChanged message)
     {
-        var observed = ObservedStatusChange.From(message);
+        var observed = ObservedStatusChange.From(message, TradeOf);
         lock (_lock)
         {
             _changes.Add(observed);

@@ -32,7 +32,7 @@ internal static class DemoRunner
         var logFolder = Path.Combine(workDir, "exposure-log");
         Directory.CreateDirectory(configDir);
         CopyConfig(configDir);
-        output.WriteLine($"monitor demo: an invented trading day at the fictional Aldermoor Capital, speed {options.Speed.ToString("G", CultureInfo.InvariantCulture)}.");
+        output.WriteLine($"monitor demo: an invented trading day at the fictional Pellowmere Capital, speed {options.Speed.ToString("G", CultureInfo.InvariantCulture)}.");
         output.WriteLine($"Working folder: {workDir} (exposure log in {logFolder}, service log in monitor.log)");
 
         var clock = new SimulatedClock(DemoScenario.DayStart, DemoScenario.BaseRate * options.Speed);

@@ -3,9 +3,9 @@ using Monitor.Analytics.Dates;
 namespace Monitor.Cli.Demo;
 
 /// <summary>
-/// The script of the invented demo day at Aldermoor Capital (all names invented): quote bursts every ten simulated
+/// The script of the invented demo day at Pellowmere Capital (all names invented): quote bursts every ten simulated
 /// minutes from 08:00 to 17:00 UTC on Monday 2026-06-01 (valuation date, the spot date, 2026-06-02); rates sell off
-/// through the day and INDU-BBB widens around midday (<see cref="MarketPath"/>); one fat-fingered quote at 12:00 that
+/// through the day and INDUSTRIAL-BBB widens around midday (<see cref="MarketPath"/>); one fat-fingered quote at 12:00 that
 /// the fitter should leave out as an outlier; and the trades below. At speed 1 the day lasts about a minute.
 /// </summary>
 internal sealed class DemoScenario
@@ -44,9 +44,9 @@ internal sealed class DemoScenario
     /// <summary>The day's trades in time order.</summary>
     public static IReadOnlyList<ScenarioTrade> Trades { get; } =
     [
-        new(new TimeSpan(9, 35, 0), "ALD-0001", "RATES-CORE", "VGB-2034-11", 12_000_000, "RATES-CORE adds 10y duration into the open"),
-        new(new TimeSpan(11, 5, 0), "ALD-0002", "CREDIT-IG", "KST-2030-09", 9_000_000, "CREDIT-IG buys the INDU-BBB dip"),
-        new(new TimeSpan(13, 15, 0), "ALD-0003", "RATES-CURVE", "VGB-2051-11", 30_000_000, "RATES-CURVE: large long-end buy"),
-        new(new TimeSpan(14, 45, 0), "ALD-0004", "RATES-CURVE", "VGB-2051-11", -26_000_000, "RATES-CURVE cuts the long-end position"),
+        new(new TimeSpan(9, 35, 0), "PLM-0001", "RATES-CORE", "VGB-2034-11", 12_000_000, "RATES-CORE adds 10y duration into the open"),
+        new(new TimeSpan(11, 5, 0), "PLM-0002", "CREDIT-IG", "KWS-2030-09", 9_000_000, "CREDIT-IG buys the INDUSTRIAL-BBB dip"),
+        new(new TimeSpan(13, 15, 0), "PLM-0003", "RATES-CURVE", "VGB-2051-11", 30_000_000, "RATES-CURVE: large long-end buy"),
+        new(new TimeSpan(14, 45, 0), "PLM-0004", "RATES-CURVE", "VGB-2051-11", -26_000_000, "RATES-CURVE cuts the long-end position"),
     ];
 }

@@ -39,9 +39,13 @@ internal static class DemoSummary
             output.WriteLine($"  {b.Book,-12} {DemoFormat.Money(b.Value),14} {DemoFormat.Money(b.Dv01),10} {DemoFormat.Money(b.BaseLevel),10} {DemoFormat.Money(b.BaseSlope),10} {DemoFormat.Money(b.BaseCurvature),10} {DemoFormat.Money(b.SpreadLevel),10} {DemoFormat.Percent(b.MaxUse),9}");
         }
         output.WriteLine("Limits at the close:");
+        // Columns as wide as their longest entry, so a long spread group name does not push the figures out of line.
+        var idWidth = outcome.Final.Limits.Select(l => l.Id.Length).DefaultIfEmpty(0).Max();
+        var scopeWidth = outcome.Final.Limits.Select(l => l.Scope.Length).DefaultIfEmpty(0).Max();
+        var measureWidth = outcome.Final.Limits.Select(l => l.Measure.Length).DefaultIfEmpty(0).Max();
         foreach (var l in outcome.Final.Limits)
         {
-            output.WriteLine($"  {l.Id,-22} {l.Scope,-18} {l.Measure,-22} {DemoFormat.Money(l.Exposure),14} of {(l.Bound is { } bound ? DemoFormat.Money(bound) : "-"),13} {DemoFormat.Percent(l.Use),7} {l.Status}");
+            output.WriteLine($"  {l.Id.PadRight(idWidth)} {l.Scope.PadRight(scopeWidth)} {l.Measure.PadRight(measureWidth)} {DemoFormat.Money(l.Exposure),14} of {(l.Bound is { } bound ? DemoFormat.Money(bound) : "-"),13} {DemoFormat.Percent(l.Use),7} {l.Status}");
         }
         output.WriteLine("Curves at the close: " + string.Join(", ", outcome.Final.Curves.Select(c =>
             string.Create(inv, $"{c.Curve} v{c.Version} RMSE {(c.RmseBp is { } r ? r.ToString("F2", inv) : "-")} bp"))));

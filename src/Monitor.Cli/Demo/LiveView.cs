@@ -31,7 +31,7 @@ internal sealed class LiveView(IAnsiConsole console)
     {
         var now = snapshot.SimulatedTime < DemoScenario.DayEnd ? snapshot.SimulatedTime : DemoScenario.DayEnd;
         var header = new Rows(
-            new Markup($"[bold]Aldermoor Capital[/] (invented), simulated {DemoScenario.TradeDate:yyyy-MM-dd} [bold]{DemoFormat.Clock(now)} UTC[/], {DemoFormat.Duration(now - DemoScenario.DayStart)} into the day"),
+            new Markup($"[bold]Pellowmere Capital[/] (invented), simulated {DemoScenario.TradeDate:yyyy-MM-dd} [bold]{DemoFormat.Clock(now)} UTC[/], {DemoFormat.Duration(now - DemoScenario.DayStart)} into the day"),
             new Markup($"quotes {recorder.QuotesSent}  curves fitted {recorder.Fits}  refits refused {recorder.Rejections().Count}  trades {recorder.TradesSent}"));
 
         var books = new Table().Border(TableBorder.Rounded).Title("Books (XTS; per-bp figures in XTS per bp)");
@@ -50,6 +50,7 @@ internal sealed class LiveView(IAnsiConsole console)
 
         var limits = new Table().Border(TableBorder.Simple).Title("Limits");
         limits.AddColumn(new TableColumn("Limit").NoWrap());
+        limits.AddColumn(new TableColumn("Scope").NoWrap());
         limits.AddColumn(new TableColumn("Measure"));
         foreach (var column in new[] { "Exposure", "Bound", "Use" })
         {
@@ -59,12 +60,17 @@ internal sealed class LiveView(IAnsiConsole console)
         {
             var money = l.Measure == "marketValue" ? (Func<double, string>)DemoFormat.Millions : DemoFormat.Money;
             limits.AddRow(
-                new Text(l.Id), new Text(l.Measure), new Text(money(l.Exposure)),
+                new Text(l.Id), new Text(l.Scope), new Text(l.Measure), new Text(money(l.Exposure)),
                 new Text(l.Bound is { } bound ? money(bound) : "-"), new Markup(UseMarkup(l.Use, l.Status) + " " + l.Status));
         }
 
         var curves = new Markup("Curves: " + string.Join("   ", snapshot.Curves.Select(c =>
             $"[bold]{Markup.Escape(c.Curve)}[/] v{c.Version} RMSE {(c.RmseBp is { } r ? DemoFormat.Number(r, "F2") + " bp" : "-")}{(c.LastRejected ? " [red](last refit refused)[/]" : string.Empty)}")));
+
+        var leftOut = recorder.LeftOut();
+        var outliers = new Markup("Left out of fits: " + (leftOut.Count == 0
+            ? "none yet"
+            : string.Join("   ", leftOut.Skip(Math.Max(0, leftOut.Count - 2)).Select(q => $"[yellow]{Markup.Escape(q)}[/]"))));
 
         var changes = recorder.Changes();
         var events = changes.Skip(Math.Max(0, changes.Count - EventsShown))
@@ -75,12 +81,14 @@ internal sealed class LiveView(IAnsiConsole console)
             events.Add(new Text("(no limit status changes yet)"));
         }
         var panel = new Panel(new Rows(events)).Header("Limit status changes (latest last)").Expand();
-        return new Rows(header, books, limits, curves, panel);
+        return new Rows(header, books, limits, curves, outliers, panel);
     }
 
+    // Coloured by the service's status, which each limit judges with its own warning level and hysteresis band
+    // (a fixed 80% here would disagree with a limit that warns at 70% or 90%).
     private static string UseMarkup(double use, string status)
     {
-        var colour = status == "breach" || use >= 1.0 ? "red" : status == "warning" || use >= 0.8 ? "yellow" : "green";
+        var colour = status switch { "breach" => "red", "warning" => "yellow", _ => "green" };
         return $"[{colour}]{DemoFormat.Percent(use)}[/]";
     }
 

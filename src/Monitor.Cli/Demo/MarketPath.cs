@@ -4,8 +4,8 @@ namespace Monitor.Cli.Demo;
 
 /// <summary>
 /// The invented "true" market of the demo day: a Nelson-Siegel government curve and Nelson-Siegel spread curves
-/// (UTIL-A, INDU-BBB) as functions of the fraction of the day elapsed, f in [0, 1]. Rates sell off through the
-/// day (level +35 bp, the short end +30 bp) and INDU-BBB widens by 45 bp around midday. A seeded random walk of
+/// (UTIL-A, INDUSTRIAL-BBB) as functions of the fraction of the day elapsed, f in [0, 1]. Rates sell off through the
+/// day (level +35 bp, the short end +30 bp) and INDUSTRIAL-BBB widens by 45 bp around midday. A seeded random walk of
 /// about 0.3 bp per step on the government level keeps the tape alive. Rates are decimals (0.01 = 1%).
 /// </summary>
 internal sealed class MarketPath
@@ -35,8 +35,8 @@ internal sealed class MarketPath
     public NelsonSiegelCurve Spread(string spreadGroup, double f) => spreadGroup switch
     {
         "UTIL-A" => new NelsonSiegelCurve(0.0095 + 0.0003 * Smooth(f, 0.2, 0.8), -0.0035, 0.0010, 2.5),
-        "INDU-BBB" => new NelsonSiegelCurve(0.0210 + 0.0045 * Smooth(f, 0.28, 0.55), -0.0060, 0.0020, 2.5),
-        _ => throw new ArgumentException($"spreadGroup '{spreadGroup}' has no demo spread curve; use UTIL-A or INDU-BBB.", nameof(spreadGroup)),
+        "INDUSTRIAL-BBB" => new NelsonSiegelCurve(0.0210 + 0.0045 * Smooth(f, 0.28, 0.55), -0.0060, 0.0020, 2.5),
+        _ => throw new ArgumentException($"spreadGroup '{spreadGroup}' has no demo spread curve; use UTIL-A or INDUSTRIAL-BBB.", nameof(spreadGroup)),
     };
 
     /// <summary>0 before <paramref name="from"/>, 1 after <paramref name="to"/>, the smoothstep 3x^2 - 2x^3 between.</summary>

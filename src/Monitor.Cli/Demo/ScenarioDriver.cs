@@ -24,8 +24,9 @@ internal sealed class ScenarioDriver(IBus bus, SimulatedClock clock, QuoteFactor
             {
                 trades.Dequeue();
                 await WaitUntil(DemoScenario.At(trade.At), cancellationToken).ConfigureAwait(false);
-                await tradeEndpoint.Send(Booked(trade, step), cancellationToken).ConfigureAwait(false);
-                recorder.TradeSent();
+                var messageId = NewId.NextGuid();
+                recorder.TradeSent(messageId, trade.TradeId);
+                await tradeEndpoint.Send(Booked(trade, step), context => context.MessageId = messageId, cancellationToken).ConfigureAwait(false);
             }
             await WaitUntil(burstAt, cancellationToken).ConfigureAwait(false);
             foreach (var bond in quotes.Shuffled())

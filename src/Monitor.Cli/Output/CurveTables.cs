@@ -18,7 +18,7 @@ internal static class CurveTables
             ("iterations", curve.Iterations.ToString(CultureInfo.InvariantCulture)),
             ("converged", curve.Converged ? "yes" : "no"),
             ("exit reason", curve.ExitReason),
-            ("instruments used", curve.UsedCount.ToString(CultureInfo.InvariantCulture)),
+            (curve.Curve == "par-yields" ? "points used" : "instruments used", curve.UsedCount.ToString(CultureInfo.InvariantCulture)),
             ("quality gate", Gate(curve.Gate)),
         };
         for (var i = 0; i < Math.Max(parameters.Count, report.Count); i++)
@@ -27,7 +27,7 @@ internal static class CurveTables
                 i < parameters.Count ? parameters[i].Item1 : string.Empty, i < parameters.Count ? parameters[i].Item2 : string.Empty,
                 i < report.Count ? report[i].Item1 : string.Empty, i < report.Count ? report[i].Item2 : string.Empty);
         }
-        console.Write(summary);
+        TableConsole.Write(console, summary);
         foreach (var reason in curve.Gate.Reasons)
         {
             TableConsole.Line(console, "  gate: " + reason);
@@ -39,7 +39,7 @@ internal static class CurveTables
 
         var points = curve.Kind == "spread"
             ? TableConsole.Table("spread curve", "tenor", ">spread (bp)")
-            : TableConsole.Table("zero curve", "tenor", ">zero (%, cont.)", ">par (%, s.a.)");
+            : TableConsole.Table("zero curve", "tenor", ">years", ">zero (%, cont.)", ">par (%, s.a.)");
         foreach (var p in curve.Points)
         {
             if (curve.Kind == "spread")
@@ -48,19 +48,21 @@ internal static class CurveTables
             }
             else
             {
-                TableConsole.Row(points, p.Tenor, Num.Fixed(p.ZeroPct ?? double.NaN, 4), Num.Fixed(p.ParPct ?? double.NaN, 4));
+                TableConsole.Row(points, p.Tenor, Num.Fixed(p.Years, 4), Num.Fixed(p.ZeroPct ?? double.NaN, 4), Num.Fixed(p.ParPct ?? double.NaN, 4));
             }
         }
-        console.Write(points);
+        TableConsole.Write(console, points);
 
         if (curve.Residuals.All(r => r.Maturity is null))
         {
-            var parTable = TableConsole.Table("residuals (published - model par, bp)", "tenor", ">published par (%)", ">residual (bp)");
+            var parTable = TableConsole.Table("residuals (published - model par, bp)", "tenor", ">published par (%)", ">residual (bp)", "used");
             foreach (var r in curve.Residuals)
             {
-                TableConsole.Row(parTable, r.Id, r.YieldPct is { } y ? Num.Fixed(y, 3) : string.Empty, Num.Fixed(r.ResidualBp, 3));
+                TableConsole.Row(parTable, r.Id, r.YieldPct is { } y ? Num.Fixed(y, 3) : string.Empty,
+                    double.IsFinite(r.ResidualBp) ? Num.Fixed(r.ResidualBp, 3) : string.Empty, ParUse(r));
             }
-            console.Write(parTable);
+            TableConsole.Write(console, parTable);
+            WriteExcluded(console, curve, "points left out");
             return;
         }
         var residuals = TableConsole.Table("residuals (market minus model, bp of yield; + = cheap)", "id", "maturity", ">clean", ">yield (%)", ">residual (bp)", "used");
@@ -69,9 +71,12 @@ internal static class CurveTables
             TableConsole.Row(residuals, r.Id, r.Maturity ?? string.Empty, r.CleanPrice is { } c ? Num.Fixed(c, 3) : string.Empty,
                 r.YieldPct is { } y ? Num.Fixed(y, 4) : string.Empty, Num.Fixed(r.ResidualBp, 2), r.Used ? "yes" : "outlier");
         }
-        console.Write(residuals);
-        WriteExcluded(console, curve);
+        TableConsole.Write(console, residuals);
+        WriteExcluded(console, curve, "quotes left out");
     }
+
+    private static string ParUse(ResidualView r) =>
+        r.Used ? "yes" : r.YieldPct is null ? "left out: no published yield" : "left out: outlier";
 
     /// <summary>One line per curve: what a risk or explain run was computed on.</summary>
     public static void WriteSummary(IAnsiConsole console, string title, IReadOnlyList<CurveView> curves)
@@ -84,7 +89,7 @@ internal static class CurveTables
             TableConsole.Row(table, c.Curve, c.Model, parameters, Num.Fixed(c.RmseBp, 3), Num.Fixed(c.MaxAbsErrorBp, 3),
                 c.UsedCount.ToString(CultureInfo.InvariantCulture), excluded, Gate(c.Gate));
         }
-        console.Write(table);
+        TableConsole.Write(console, table);
         foreach (var c in curves)
         {
             foreach (var reason in c.Gate.Reasons)
@@ -98,19 +103,19 @@ internal static class CurveTables
         }
     }
 
-    private static void WriteExcluded(IAnsiConsole console, CurveView curve)
+    private static void WriteExcluded(IAnsiConsole console, CurveView curve, string title)
     {
         if (curve.Excluded.Count == 0)
         {
-            TableConsole.Line(console, "quotes left out: none");
+            TableConsole.Line(console, title + ": none");
             return;
         }
-        var table = TableConsole.Table("quotes left out", "id", "reason", "detail");
+        var table = TableConsole.Table(title, "id", "reason", "detail");
         foreach (var e in curve.Excluded)
         {
             TableConsole.Row(table, e.Id, e.Reason, e.Detail);
         }
-        console.Write(table);
+        TableConsole.Write(console, table);
     }
 
     private static string Gate(GateView gate) =>

@@ -1,5 +1,6 @@
 using Monitor.Analytics.Curves;
 using Monitor.Analytics.Fitting;
+using Monitor.Analytics.Market;
 using Monitor.Cli.Verbs;
 
 namespace Monitor.Cli.Output;
@@ -7,23 +8,41 @@ namespace Monitor.Cli.Output;
 /// <summary>Builds the <see cref="CurveView"/> of a fitted curve (bond or par-yield fit).</summary>
 internal static class CurveViews
 {
-    private static readonly double[] Tenors = [0.25, 1, 2, 5, 10, 20, 30];
+    /// <summary>The tenors printed unless the user asks for others (fit --tenors).</summary>
+    public const string StandardTenors = "3M,1,2,5,10,20,30";
 
-    public static CurveView Of(FittedCurve fitted)
+    private static readonly double[] Standard = [0.25, 1, 2, 5, 10, 20, 30];
+
+    public static CurveView Of(FittedCurve fitted) => Of(fitted, Standard);
+
+    public static CurveView Of(FittedCurve fitted, IReadOnlyList<double> tenors)
     {
         var byId = fitted.Quotes.ToDictionary(q => q.Bond.Id, StringComparer.Ordinal);
         var residuals = fitted.Result.Report.Residuals.Select(r => byId.TryGetValue(r.Id, out var q)
             ? new ResidualView(r.Id, Num.Date(q.Bond.MaturityDate), q.CleanPrice, 100 * q.Yield, r.ResidualBp, r.Used)
             : new ResidualView(r.Id, null, null, null, r.ResidualBp, r.Used));
-        return Build(fitted.Label, fitted.IsGovernment ? "base" : "spread", fitted.Result, fitted.Gate, fitted.Verdict, residuals.ToArray());
+        return Build(fitted.Label, fitted.IsGovernment ? "base" : "spread", fitted.Result, fitted.Gate, fitted.Verdict, residuals.ToArray(), tenors);
     }
 
-    /// <summary>A par-yield fit: residuals are published minus model par yield in bp, one per tenor.</summary>
-    public static CurveView OfParYields(CurveFitResult result, FitQualityGate gate, FitQualityVerdict verdict, IReadOnlyDictionary<string, double> publishedByTenor) =>
-        Build("par-yields", "base", result, gate, verdict,
-            [.. result.Report.Residuals.Select(r => new ResidualView(r.Id, null, null, publishedByTenor.TryGetValue(r.Id, out var y) ? 100 * y : null, r.ResidualBp, r.Used))]);
+    /// <summary>
+    /// A par-yield fit: residuals are published minus model par yield in bp, one per tenor of the file; a tenor the
+    /// fit left out is kept with <c>used</c> false: an outlier keeps its residual, a tenor without a published yield
+    /// has neither yield nor residual (null in JSON).
+    /// </summary>
+    public static CurveView OfParYields(
+        CurveFitResult result, FitQualityGate gate, FitQualityVerdict verdict, IReadOnlyDictionary<string, double> publishedByTenor,
+        IReadOnlyList<string> blankTenors, IReadOnlyList<double> tenors)
+    {
+        var residuals = result.Report.Residuals
+            .Select(r => new ResidualView(r.Id, null, null, publishedByTenor.TryGetValue(r.Id, out var y) ? 100 * y : null, r.ResidualBp, r.Used))
+            .Concat(blankTenors.Select(t => new ResidualView(t, null, null, null, double.NaN, false)))
+            .OrderBy(r => Tenor.TryParseYears(r.Id, out var years) ? years : double.MaxValue)
+            .ToArray();
+        return Build("par-yields", "base", result, gate, verdict, residuals, tenors);
+    }
 
-    private static CurveView Build(string label, string kind, CurveFitResult result, FitQualityGate gate, FitQualityVerdict verdict, IReadOnlyList<ResidualView> residuals)
+    private static CurveView Build(
+        string label, string kind, CurveFitResult result, FitQualityGate gate, FitQualityVerdict verdict, IReadOnlyList<ResidualView> residuals, IReadOnlyList<double> tenors)
     {
         var report = result.Report;
         var spread = kind == "spread";
@@ -43,7 +62,7 @@ internal static class CurveViews
             new GateView(gate.MaxRmseBp, gate.MaxAbsErrorBp, gate.MinInstruments, verdict.Passed, verdict.Reasons),
             residuals,
             [.. report.Exclusions.Select(e => new ExclusionView(e.Id, e.Reason.ToString(), e.Detail))],
-            [.. Tenors.Select(t => Point(result.Curve, t, spread))]);
+            [.. tenors.Select(t => Point(result.Curve, t, spread))]);
     }
 
     private static Dictionary<string, double> Parameters(CurveFitResult result, bool spread)

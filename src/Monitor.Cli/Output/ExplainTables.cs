@@ -9,8 +9,8 @@ internal static class ExplainTables
     public static void Write(IAnsiConsole console, ExplainDocument explain)
     {
         TableConsole.Line(console, $"holding period {explain.FromDate} -> {explain.ToDate}");
-        CurveTables.WriteSummary(console, "curves at " + explain.FromDate, explain.FromCurves);
-        CurveTables.WriteSummary(console, "curves at " + explain.ToDate, explain.ToCurves);
+        CurveTables.WriteSummary(console, $"start curves ({explain.FromDate}, --from-quotes)", explain.FromCurves);
+        CurveTables.WriteSummary(console, $"end curves ({explain.ToDate}, --to-quotes)", explain.ToCurves);
         foreach (var b in explain.Books)
         {
             var values = string.Create(CultureInfo.InvariantCulture,
@@ -22,7 +22,7 @@ internal static class ExplainTables
                 TableConsole.Row(components, c.Name, Num.Money(c.Money), Num.Fixed(c.ReturnBp, 3));
             }
             TableConsole.Row(components, "total ln(V1/V0)", Num.Money(b.TotalPnl), Num.Fixed(b.TotalReturnBp, 3));
-            console.Write(components);
+            TableConsole.Write(console, components);
 
             var terms = TableConsole.Table($"{b.Book}: curve returns at the horizon explained by factor terms (return = money / Vh)", "term", ">money", ">return (bp)");
             foreach (var curve in new[] { b.Base, b.Spread }.OfType<CurveExplainView>())
@@ -35,7 +35,7 @@ internal static class ExplainTables
                     TableConsole.Row(terms, "  " + t.Name, Num.Money(t.Money), Num.Fixed(t.ReturnBp, 3));
                 }
             }
-            console.Write(terms);
+            TableConsole.Write(console, terms);
         }
     }
 }

@@ -29,8 +29,8 @@ internal static class RiskTables
                 TableConsole.Row(money, [p.Book, p.InstrumentId, Num.Money(p.FaceAmount), Num.Money(p.Exposures.Value), Num.PerBp(p.Exposures.Dv01), .. MoneyCells(p.Exposures)]);
                 TableConsole.Row(units, [p.Book, p.InstrumentId, .. UnitCells(p.Exposures)]);
             }
-            console.Write(money);
-            console.Write(units);
+            TableConsole.Write(console, money);
+            TableConsole.Write(console, units);
         }
         var books = TableConsole.Table("books: from cash flows merged by date (money per bp); last column: largest gap to the sum of the positions",
             [.. new[] { "book", ">positions", ">value", ">DV01" }, .. MoneyColumns(baseNames, spreadNames), ">|book - sum|"]);
@@ -42,8 +42,8 @@ internal static class RiskTables
                 .. MoneyCells(b.Exposures), b.MaxAbsDifference.ToString("0.0E+0", CultureInfo.InvariantCulture)]);
             TableConsole.Row(bookUnits, [b.Book, .. UnitCells(b.Exposures)]);
         }
-        console.Write(books);
-        console.Write(bookUnits);
+        TableConsole.Write(console, books);
+        TableConsole.Write(console, bookUnits);
     }
 
     private static IEnumerable<string> MoneyColumns(string[] baseNames, string[] spreadNames) =>

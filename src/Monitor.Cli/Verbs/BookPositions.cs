@@ -60,6 +60,6 @@ internal sealed class BookPositions
     private static int LineOf(string path, int index)
     {
         using var reader = new StreamReader(path);
-        return CsvTable.Read(reader, path, ["book", "instrument_id", "face_amount"]).ElementAt(index).Line;
+        return CsvTable.Read(reader, path, ["book", "instrument_id", "face_amount"], []).ElementAt(index).Line;
     }
 }

@@ -37,6 +37,10 @@ internal sealed class CliInputException : Exception
 
     public int ExitCode { get; }
 
+    /// <summary>"--name is required and missing; it wants: what" (exit 1), as <see cref="CommonOptions.CheckRequired"/> words it.</summary>
+    public static CliInputException Missing(string option, string wants) =>
+        new($"{option} is required and missing; it wants: {wants}", BadOption);
+
     /// <summary>"--name: 'value' reason".</summary>
     public static CliInputException Option(string option, string? value, string reason) =>
         new($"{option}: '{value}' {reason}", BadOption);

@@ -10,8 +10,31 @@ internal static class CommonOptions
     public const string NelsonSiegel = "nelson-siegel";
     public const string Svensson = "svensson";
 
+    /// <summary>Marks required options in help ("(required)") and names a missing one with what it wants.</summary>
+    public const string RequiredMark = "(required) ";
+
     public static Option<string> File(string name, string description, bool required) =>
-        new(name) { Description = description, Required = required };
+        new(name) { Description = required ? RequiredMark + description : description };
+
+    /// <summary>
+    /// Every option of <paramref name="command"/> whose help starts with <see cref="RequiredMark"/> must be given; a
+    /// missing one fails with "--name is required and missing; it wants: &lt;its help&gt;" (exit 1). System.CommandLine's own
+    /// "Option '--x' is required." names the option but not what it wants.
+    /// </summary>
+    public static void CheckRequired(Command command)
+    {
+        var required = command.Options.Where(o => o.Description?.StartsWith(RequiredMark, StringComparison.Ordinal) == true).ToArray();
+        command.Validators.Add(result =>
+        {
+            foreach (var option in required)
+            {
+                if (result.GetResult(option) is null)
+                {
+                    result.AddError($"{option.Name} is required and missing; it wants: {option.Description![RequiredMark.Length..]}");
+                }
+            }
+        });
+    }
 
     public static Option<bool> Json() =>
         new("--json") { Description = "Print JSON (camelCase, invariant numbers; shape in src/Monitor.Cli/README.md) instead of tables." };
@@ -26,20 +49,36 @@ internal static class CommonOptions
         return OneOf(option, NelsonSiegel, Svensson);
     }
 
-    /// <summary>Restricts an option to a few words, with an error that names the option and the value.</summary>
+    /// <summary>
+    /// Restricts an option to a few lowercase words (any case accepted; read it with <see cref="Word"/>), with an error
+    /// that names the option and the value.
+    /// </summary>
     public static Option<string> OneOf(Option<string> option, params string[] words)
     {
         option.HelpName = string.Join('|', words);
         option.Validators.Add(result =>
         {
             var value = result.GetValueOrDefault<string>();
-            if (!words.Contains(value, StringComparer.Ordinal))
+            if (!words.Contains(value, StringComparer.OrdinalIgnoreCase))
             {
                 result.AddError($"{option.Name}: '{value}' is not one of {string.Join(", ", words)}.");
             }
         });
         return option;
     }
+
+    /// <summary>The value of a <see cref="OneOf"/> option in its lowercase spelling.</summary>
+    public static string? Word(ParseResult parse, Option<string> option) => parse.GetValue(option)?.ToLowerInvariant();
+
+    /// <summary>--tenors: years (1,2,5,10,30), a range of whole years (1..30), labels (3M, 2Y), or a mix.</summary>
+    public static Option<string?> Tenors(string defaultText) =>
+        new("--tenors")
+        {
+            Description = $"Tenors to print: years (1,2,5,10,30), a range of whole years (1..30), labels (3M, 2Y) or a mix (default {defaultText}).",
+        };
+
+    /// <summary>Parses --tenors into ascending distinct years.</summary>
+    public static IReadOnlyList<double> ParseTenors(string? text, string defaultText) => TenorList.Parse("--tenors", text ?? defaultText);
 
     public static Option<string?> Date(string name, string description) => new(name) { Description = description };
 
@@ -50,7 +89,7 @@ internal static class CommonOptions
             DefaultValueFactory = _ => 4.0,
         };
 
-    public static CurveModel ParseModel(string? text) => text switch
+    public static CurveModel ParseModel(string? text) => text?.ToLowerInvariant() switch
     {
         Svensson => CurveModel.Svensson,
         _ => CurveModel.NelsonSiegel,

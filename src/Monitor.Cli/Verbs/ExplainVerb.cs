@@ -34,6 +34,7 @@ internal static class ExplainVerb
         }
         baseGate.AddTo(command);
         spreadGate.AddTo(command);
+        CommonOptions.CheckRequired(command);
         command.SetAction(parse => VerbRunner.Run(parse, output =>
         {
             var bonds = InstrumentFile.Read(parse.GetValue(instruments)!).ToDictionary(b => b.Id, StringComparer.Ordinal);

@@ -14,38 +14,43 @@ internal static class FitVerb
 {
     public static Command Create()
     {
-        var instruments = CommonOptions.File("--instruments", "Instruments file (config/examples/README.md).", required: false);
-        var quotes = CommonOptions.File("--quotes", "Quotes file; the newest quote per instrument is used.", required: false);
+        var instruments = CommonOptions.File("--instruments", "(required unless --par-yields) Instruments file (config/examples/README.md).", required: false);
+        var quotes = CommonOptions.File("--quotes", "(required unless --par-yields) Quotes file; the newest quote per instrument is used.", required: false);
         var model = CommonOptions.Model();
         var valuationDate = CommonOptions.Date("--valuation-date", "Valuation date YYYY-MM-DD (default: the spot date, T+1 business day, of the earliest quote's date).");
         var spreadGroup = new Option<string?>("--spread-group") { Description = "Also fit this spread group's Nelson-Siegel spread curve over the government curve." };
         var parYields = CommonOptions.File("--par-yields", "Par-yield points file: fit a curve to one date's points instead of bond quotes.", required: false);
         var asOf = CommonOptions.Date("--as-of", "With --par-yields: the date to fit (default: the only date in the file).");
         var stale = CommonOptions.StaleAfterHours();
+        var tenors = CommonOptions.Tenors(CurveViews.StandardTenors);
         var json = CommonOptions.Json();
         var baseGate = GateOptions.ForBase();
         var spreadGate = GateOptions.ForSpread();
-        var command = new Command("fit", "Fit the government curve (and a spread curve) to bond quotes, or a curve to par yields; print parameters, fit report, residuals in bp, quotes left out and the quality-gate verdict. Exit 4 when a curve fails its gate.");
-        foreach (var option in new Option[] { instruments, quotes, model, valuationDate, spreadGroup, parYields, asOf, stale, json })
+        var parGate = GateOptions.ForParYields();
+        var command = new Command("fit", "Fit the government curve (and a spread curve) to bond quotes, or a curve to par yields; print parameters, fit report, the curve at --tenors with its year basis, residuals in bp, quotes left out and the quality-gate verdict. Exit 4 when a curve fails its gate.");
+        foreach (var option in new Option[] { instruments, quotes, model, valuationDate, spreadGroup, parYields, asOf, tenors, stale, json })
         {
             command.Options.Add(option);
         }
         baseGate.AddTo(command);
         spreadGate.AddTo(command);
+        parGate.AddTo(command);
         command.SetAction(parse => VerbRunner.Run(parse, output =>
         {
             var curveModel = CommonOptions.ParseModel(parse.GetValue(model));
+            var years = CommonOptions.ParseTenors(parse.GetValue(tenors), CurveViews.StandardTenors);
             var views = parse.GetValue(parYields) is { } parPath
-                ? FitParYields(parPath, CommonOptions.ParseDate("--as-of", parse.GetValue(asOf)), curveModel, baseGate.Read(parse), parse.GetValue(quotes))
+                ? FitParYields(parPath, CommonOptions.ParseDate("--as-of", parse.GetValue(asOf)), curveModel, parGate.Read(parse), parse.GetValue(quotes), years)
                 : FitQuotes(
-                    parse.GetValue(instruments) ?? throw CliInputException.Option("--instruments", null, "is required (or give --par-yields)."),
-                    parse.GetValue(quotes) ?? throw CliInputException.Option("--quotes", null, "is required (or give --par-yields)."),
+                    parse.GetValue(instruments) ?? throw CliInputException.Missing("--instruments", "the instruments file (config/examples/README.md), or give --par-yields."),
+                    parse.GetValue(quotes) ?? throw CliInputException.Missing("--quotes", "the quotes file (config/examples/README.md), or give --par-yields."),
                     CommonOptions.ParseDate("--valuation-date", parse.GetValue(valuationDate)),
                     parse.GetValue(spreadGroup),
                     curveModel,
                     baseGate.Read(parse),
                     spreadGate.Read(parse),
-                    CommonOptions.ParseStaleAfter(parse.GetValue(stale)));
+                    CommonOptions.ParseStaleAfter(parse.GetValue(stale)),
+                    years);
             if (parse.GetValue(json))
             {
                 JsonOutput.Write(output, views);
@@ -54,6 +59,7 @@ internal static class FitVerb
             {
                 var console = TableConsole.Create(output);
                 TableConsole.Line(console, (parse.GetValue(parYields) is null ? "valuation date " : "par yields as of ") + views.Date);
+                TableConsole.Line(console, "curve time: " + views.YearBasis);
                 foreach (var curve in views.Curves)
                 {
                     CurveTables.Write(console, curve);
@@ -66,7 +72,7 @@ internal static class FitVerb
 
     private static FitDocument FitQuotes(
         string instrumentsPath, string quotesPath, DateOnly? valuationDate, string? spreadGroup, CurveModel model,
-        FitQualityGate baseGate, FitQualityGate spreadGate, TimeSpan staleAfter)
+        FitQualityGate baseGate, FitQualityGate spreadGate, TimeSpan staleAfter, IReadOnlyList<double> tenors)
     {
         var bonds = InstrumentFile.Read(instrumentsPath).ToDictionary(b => b.Id, StringComparer.Ordinal);
         if (spreadGroup is not null && !bonds.Values.Any(b => string.Equals(b.SpreadGroup, spreadGroup, StringComparison.Ordinal)))
@@ -75,10 +81,11 @@ internal static class FitVerb
         }
         var snapshot = MarketSnapshot.Load(bonds, quotesPath, valuationDate, staleAfter);
         var curves = snapshot.Fit(model, baseGate, spreadGate, spreadGroup is null ? [] : [spreadGroup]);
-        return new FitDocument(Num.Date(snapshot.ValuationDate), [.. curves.All().Select(CurveViews.Of)]);
+        var date = Num.Date(snapshot.ValuationDate);
+        return new FitDocument(date, $"ACT/365F years from the valuation date {date}", [.. curves.All().Select(c => CurveViews.Of(c, tenors))]);
     }
 
-    private static FitDocument FitParYields(string path, DateOnly? asOf, CurveModel model, FitQualityGate gate, string? quotes)
+    private static FitDocument FitParYields(string path, DateOnly? asOf, CurveModel model, FitQualityGate gate, string? quotes, IReadOnlyList<double> tenors)
     {
         if (quotes is not null)
         {
@@ -112,6 +119,8 @@ internal static class FitVerb
             throw new CliInputException($"par-yield curve of {Num.Date(set.AsOf)} from {path}: {ex.Message}", ex);
         }
         var published = set.Points.Where(p => p.ParYield.HasValue).ToDictionary(p => ParYieldCurveFitter.TenorLabel(p.TenorYears), p => p.ParYield!.Value, StringComparer.Ordinal);
-        return new FitDocument(Num.Date(set.AsOf), [CurveViews.OfParYields(result, gate, gate.Evaluate(result.Report), published)]);
+        var blank = set.Points.Where(p => !p.ParYield.HasValue).Select(p => ParYieldCurveFitter.TenorLabel(p.TenorYears)).ToArray();
+        return new FitDocument(Num.Date(set.AsOf), "years of the tenor labels (1M = 1/12, 10Y = 10)",
+            [CurveViews.OfParYields(result, gate, gate.Evaluate(result.Report), published, blank, tenors)]);
     }
 }

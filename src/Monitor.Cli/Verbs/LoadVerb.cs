@@ -21,7 +21,10 @@ internal static class LoadVerb
         // `monitor load` with vmstat); a service runs all day, so the latencies are measured after that.
         var warmup = new Option<double>("--warmup") { Description = "Warm-up seconds at the paced rate before measuring.", DefaultValueFactory = _ => 15 };
         var books = new Option<int>("--books") { Description = "Number of generated books (10 positions each) in service mode.", DefaultValueFactory = _ => 1000 };
-        var mode = new Option<LoadMode>("--mode") { Description = "service (the monitor in-process), bare (a consumer that does nothing) or both.", DefaultValueFactory = _ => LoadMode.Both };
+        // Lowercase like every other option value (any case accepted).
+        var mode = CommonOptions.OneOf(
+            new Option<string>("--mode") { Description = "service (the monitor in-process), bare (a consumer that does nothing) or both.", DefaultValueFactory = _ => "both" },
+            "service", "bare", "both");
         // 20,000: about 5 s at the broker's pace; a 5,000-quote burst lasted 1.3-1.7 s and one stall moved the ratio 10-30 points.
         var count = new Option<long>("--count") { Description = "Quotes in the max-rate throughput phase.", DefaultValueFactory = _ => 20_000 };
         var tradeEvery = new Option<int>("--trade-every") { Description = "Service mode: a trade after every N quotes; 0 for none.", DefaultValueFactory = _ => 250 };
@@ -45,7 +48,7 @@ internal static class LoadVerb
                     Positive("--rate", parse.GetValue(rate), 100_000),
                     Positive("--seconds", parse.GetValue(seconds), 3600),
                     Within("--books", parse.GetValue(books), 1, 100_000),
-                    parse.GetValue(mode),
+                    Enum.Parse<LoadMode>(CommonOptions.Word(parse, mode)!, ignoreCase: true),
                     Within("--count", parse.GetValue(count), 1, 10_000_000),
                     Math.Clamp(parse.GetValue(warmup), 0, 600),
                     Within("--trade-every", parse.GetValue(tradeEvery), 0, int.MaxValue),

@@ -36,6 +36,7 @@ internal static class RiskVerb
         }
         baseGate.AddTo(command);
         spreadGate.AddTo(command);
+        CommonOptions.CheckRequired(command);
         command.SetAction(parse => VerbRunner.Run(parse, output =>
         {
             var bonds = InstrumentFile.Read(parse.GetValue(instruments)!).ToDictionary(b => b.Id, StringComparer.Ordinal);
@@ -43,7 +44,7 @@ internal static class RiskVerb
             var snapshot = MarketSnapshot.Load(bonds, parse.GetValue(quotes)!,
                 CommonOptions.ParseDate("--valuation-date", parse.GetValue(valuationDate)), CommonOptions.ParseStaleAfter(parse.GetValue(stale)));
             var curves = snapshot.Fit(CommonOptions.ParseModel(parse.GetValue(model)), baseGate.Read(parse), spreadGate.Read(parse), book.SpreadGroups);
-            var document = Compute(book, curves, parse.GetValue(by) == "position");
+            var document = Compute(book, curves, CommonOptions.Word(parse, by) == "position");
             if (parse.GetValue(json))
             {
                 JsonOutput.Write(output, document);

@@ -6,14 +6,16 @@ namespace Monitor.Files.Csv;
 
 /// <summary>
 /// Reads a comma-separated file with a header row (CsvHelper does the tokenising: quotes, escapes),
-/// checks the required columns are present, and hands out rows whose typed getters fail with a
+/// checks the required columns are present and refuses any column the format does not have (in the header, or a
+/// row with more fields than the header), naming the file and line, and hands out rows whose typed getters fail with a
 /// <see cref="CsvFileException"/> naming the file, line, column and value.
 /// Lines starting with '#' are comments; blank lines are skipped.
 /// </summary>
 public static class CsvTable
 {
-    public static IEnumerable<CsvRow> Read(TextReader reader, string fileName, IReadOnlyCollection<string> requiredColumns)
+    public static IEnumerable<CsvRow> Read(TextReader reader, string fileName, IReadOnlyCollection<string> requiredColumns, IReadOnlyCollection<string> optionalColumns)
     {
+        ArgumentNullException.ThrowIfNull(optionalColumns);
         ArgumentNullException.ThrowIfNull(reader);
         var config = new CsvConfiguration(CultureInfo.InvariantCulture)
         {
@@ -36,9 +38,20 @@ public static class CsvTable
             throw new CsvFileException(fileName, 1, null, null,
                 $"lacks the column(s) {string.Join(", ", missing)}; the header must include {string.Join(",", requiredColumns)}.");
         }
+        var known = requiredColumns.Concat(optionalColumns).ToArray();
+        if (header.FirstOrDefault(h => !known.Contains(h, StringComparer.Ordinal)) is { } extra)
+        {
+            throw new CsvFileException(fileName, csv.Parser.RawRow, extra, null,
+                $"is not a column of this file; its columns are {string.Join(",", known)}.");
+        }
         var index = header.Select((h, i) => (h, i)).GroupBy(p => p.h, StringComparer.Ordinal).ToDictionary(g => g.Key, g => g.First().i, StringComparer.Ordinal);
         while (csv.Read())
         {
+            if (csv.Parser.Count > header.Length)
+            {
+                throw new CsvFileException(fileName, csv.Parser.RawRow, null, null,
+                    $"has {csv.Parser.Count} fields but the header has {header.Length} columns: an extra field is refused.");
+            }
             var fields = new string[header.Length];
             for (var i = 0; i < header.Length; i++)
             {

@@ -29,13 +29,13 @@ internal static class DemoSpreadQuotes
         Credit("LKW-2036-10", "UTIL-A", 4.400m, new(2024, 10, 1), new(2036, 10, 1)),
     ];
 
-    public static readonly Bond[] InduBbb =
+    public static readonly Bond[] IndustrialBbb =
     [
-        Credit("BRS-2028-12", "INDU-BBB", 5.000m, new(2023, 12, 1), new(2028, 12, 1)),
-        Credit("BRS-2032-06", "INDU-BBB", 5.500m, new(2022, 6, 1), new(2032, 6, 1)),
-        Credit("KST-2035-03", "INDU-BBB", 5.750m, new(2025, 3, 1), new(2035, 3, 1)),
-        Credit("KST-2030-09", "INDU-BBB", 5.250m, new(2025, 9, 1), new(2030, 9, 1)),
-        Credit("HGC-2033-03", "INDU-BBB", 5.400m, new(2023, 3, 1), new(2033, 3, 1)),
+        Credit("BHS-2028-12", "INDUSTRIAL-BBB", 5.000m, new(2023, 12, 1), new(2028, 12, 1)),
+        Credit("BHS-2032-06", "INDUSTRIAL-BBB", 5.500m, new(2022, 6, 1), new(2032, 6, 1)),
+        Credit("KWS-2035-03", "INDUSTRIAL-BBB", 5.750m, new(2025, 3, 1), new(2035, 3, 1)),
+        Credit("KWS-2030-09", "INDUSTRIAL-BBB", 5.250m, new(2025, 9, 1), new(2030, 9, 1)),
+        Credit("HMC-2033-03", "INDUSTRIAL-BBB", 5.400m, new(2023, 3, 1), new(2033, 3, 1)),
     ];
 
     /// <summary>The demo's quote bursts: every ten minutes from 08:00 to 17:00, step 0..54, f = step / 54.</summary>
@@ -52,7 +52,7 @@ internal static class DemoSpreadQuotes
     public static NelsonSiegelCurve Spread(string group, double f) => group switch
     {
         "UTIL-A" => new NelsonSiegelCurve(0.0095 + 0.0003 * Smooth(f, 0.2, 0.8), -0.0035, 0.0010, 2.5),
-        "INDU-BBB" => new NelsonSiegelCurve(0.0210 + 0.0045 * Smooth(f, 0.28, 0.55), -0.0060, 0.0020, 2.5),
+        "INDUSTRIAL-BBB" => new NelsonSiegelCurve(0.0210 + 0.0045 * Smooth(f, 0.28, 0.55), -0.0060, 0.0020, 2.5),
         _ => throw new ArgumentException($"spread group '{group}' is not a demo group.", nameof(group)),
     };
 

@@ -24,10 +24,10 @@ public class SparseSpreadFitTests(ITestOutputHelper output)
 
     [Theory]
     [InlineData("UTIL-A", 2010, 10)]
-    [InlineData("INDU-BBB", 1023, 23)]
+    [InlineData("INDUSTRIAL-BBB", 1023, 23)]
     public void Five_bond_warm_refit_converges_to_the_cold_solution(string group, int seed, int step)
     {
-        var bonds = group == "UTIL-A" ? DemoSpreadQuotes.UtilA : DemoSpreadQuotes.InduBbb;
+        var bonds = group == "UTIL-A" ? DemoSpreadQuotes.UtilA : DemoSpreadQuotes.IndustrialBbb;
         var (warm, cold, truth) = FitBoth(bonds, group, seed, step);
 
         Assert.True(warm.Report.Converged, warm.Report.ExitReason);
@@ -49,7 +49,7 @@ public class SparseSpreadFitTests(ITestOutputHelper output)
     public void Ten_bonds_over_the_same_narrow_span_still_converge_with_an_estimated_decay()
     {
         // Both groups' bonds priced on the UTIL-A curve: enough bonds to estimate the decay, the same 2.5..10 year span.
-        var bonds = DemoSpreadQuotes.UtilA.Concat(DemoSpreadQuotes.InduBbb).ToArray();
+        var bonds = DemoSpreadQuotes.UtilA.Concat(DemoSpreadQuotes.IndustrialBbb).ToArray();
         var (warm, cold, _) = FitBoth(bonds, "UTIL-A", 5046, 46);
 
         Assert.True(warm.Report.Converged, warm.Report.ExitReason);

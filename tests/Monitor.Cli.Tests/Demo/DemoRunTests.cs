@@ -1,3 +1,5 @@
+using System.Globalization;
+using System.Text.RegularExpressions;
 using Monitor.Cli.Demo;
 using Monitor.Service.Audit;
 
@@ -35,6 +37,32 @@ public sealed class DemoRunTests(DemoRunFixture run) : IClassFixture<DemoRunFixt
         var clear = Assert.Single(changes, c => c.Kind == StatusChangeKind.Clear && c.Message.LimitId == "rates-curve-dv01");
         Assert.Equal("breach", clear.Message.PreviousStatus);
         Assert.Equal(DemoScenario.At(DemoScenario.Trades[3].At), clear.Message.EventTime);
+        // The officer reads the trade's id, not an internal message type (issue 11).
+        Assert.Equal($"after trade {DemoScenario.Trades[2].TradeId}", breach.Cause);
+        Assert.Contains($"after trade {DemoScenario.Trades[3].TradeId}", run.Output, StringComparison.Ordinal);
+        Assert.DoesNotContain("TradeBooked", run.Output, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void The_figures_the_README_states_for_every_run_are_those_of_a_real_run()
+    {
+        // Issue 11: the README's demo figures drifted; here they are read from the README and compared with the run.
+        var readme = string.Join(" ", File.ReadAllLines(Path.Combine(AppContext.BaseDirectory, "Examples", "ROOT-README.md")));
+        var figures = Regex.Match(readme,
+            @"Every run: (?<quotes>[\d,]+) quotes and (?<trades>\d+) trades through the bus; (?<warnings>\d+) warnings, (?<breaches>\d+) breach \((?<from>\d\d:\d\d) to (?<to>\d\d:\d\d) simulated\),\s+(?<clears>\d+) clears");
+        Assert.True(figures.Success, "the README's demo paragraph no longer states the figures of every run");
+        int Read(string name) => int.Parse(figures.Groups[name].Value.Replace(",", string.Empty, StringComparison.Ordinal), CultureInfo.InvariantCulture);
+        var outcome = run.Outcome;
+        Assert.Equal(Read("quotes"), outcome.Quotes);
+        Assert.Equal(Read("trades"), outcome.Trades);
+        Assert.Equal(Read("warnings"), outcome.Count(StatusChangeKind.Warning));
+        Assert.Equal(Read("breaches"), outcome.Count(StatusChangeKind.Breach));
+        Assert.Equal(Read("clears"), outcome.Count(StatusChangeKind.Clear));
+        var breach = Assert.Single(outcome.Changes, c => c.Kind == StatusChangeKind.Breach);
+        Assert.Equal(figures.Groups["from"].Value, breach.Message.EventTime.ToString("HH:mm", CultureInfo.InvariantCulture));
+        var clear = Assert.Single(outcome.Changes, c => c.Kind == StatusChangeKind.Clear && c.Message.LimitId == breach.Message.LimitId);
+        Assert.Equal(figures.Groups["to"].Value, clear.Message.EventTime.ToString("HH:mm", CultureInfo.InvariantCulture));
+        Assert.True(outcome.Verification.Intact);
     }
 
     [Fact]

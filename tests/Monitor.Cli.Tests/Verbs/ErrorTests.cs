@@ -56,7 +56,7 @@ public class ErrorTests
     [Theory]
     [InlineData("--valuation-date", "2026-13-01")]
     [InlineData("--model", "cubic-spline")]
-    [InlineData("--max-rmse-bp", "-1")]
+    [InlineData("--base-max-rmse-bp", "-1")]
     [InlineData("--stale-after-hours", "0")]
     public void Bad_option_value_exits_1_naming_option_and_value(string option, string value)
     {
@@ -73,7 +73,7 @@ public class ErrorTests
         var (exit, _, error) = CliRun.Invoke("fit", "--instruments", CliRun.Data("instruments.csv"));
 
         Assert.Equal(1, exit);
-        Assert.Contains("--quotes", error, StringComparison.Ordinal);
+        Assert.Contains("--quotes is required and missing; it wants: the quotes file", error, StringComparison.Ordinal);
     }
 
     [Fact]
@@ -97,5 +97,17 @@ public class ErrorTests
 
         Assert.Equal(2, exit);
         Assert.Contains("spread group 'NEW-GRP'", error, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Extra_csv_column_exits_2_naming_the_file_and_line()
+    {
+        using var temp = new TempFolder();
+        var instruments = temp.Edited("instruments.csv", line => line.StartsWith("id,", StringComparison.Ordinal) ? line + ",rating" : line);
+
+        var (exit, _, error) = CliRun.Invoke("fit", "--instruments", instruments, "--quotes", CliRun.Data("quotes-close.csv"));
+
+        Assert.Equal(2, exit);
+        Assert.Contains("instruments.csv, line 2, column 'rating'", error, StringComparison.Ordinal);
     }
 }

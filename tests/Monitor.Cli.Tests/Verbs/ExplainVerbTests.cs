@@ -95,4 +95,27 @@ public class ExplainVerbTests
             Assert.Contains(text, output, StringComparison.Ordinal);
         }
     }
+
+    [Fact]
+    public void Curve_tables_are_titled_by_start_and_end()
+    {
+        var (exit, output, error) = CliRun.Invoke(Args());
+
+        Assert.True(exit == 0, error);
+        var start = output.IndexOf("start curves (2026-06-02, --from-quotes)", StringComparison.Ordinal);
+        var end = output.IndexOf("end curves (2026-06-02, --to-quotes)", StringComparison.Ordinal);
+        Assert.True(start >= 0 && end > start, output);
+    }
+
+    [Fact]
+    public void Missing_required_options_are_each_named_with_what_they_want()
+    {
+        var (exit, _, error) = CliRun.Invoke("explain", "--instruments", CliRun.Data("instruments.csv"));
+
+        Assert.Equal(1, exit);
+        Assert.Contains("--positions is required and missing; it wants: Positions file", error, StringComparison.Ordinal);
+        Assert.Contains("--from-quotes is required and missing; it wants: Quotes at the start", error, StringComparison.Ordinal);
+        Assert.Contains("--to-quotes is required and missing", error, StringComparison.Ordinal);
+        Assert.DoesNotContain("--instruments is required", error, StringComparison.Ordinal);
+    }
 }

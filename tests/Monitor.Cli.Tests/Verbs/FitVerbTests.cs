@@ -116,14 +116,14 @@ public class FitVerbTests
     [Fact]
     public void Spread_group_fit_sits_on_the_government_curve()
     {
-        var (exit, output, error) = CliRun.Invoke("fit", "--instruments", Instruments, "--quotes", CliRun.Data("quotes-close.csv"), "--spread-group", "INDU-BBB", "--json");
+        var (exit, output, error) = CliRun.Invoke("fit", "--instruments", Instruments, "--quotes", CliRun.Data("quotes-close.csv"), "--spread-group", "INDUSTRIAL-BBB", "--json");
 
         Assert.True(exit == 0, error);
         using var json = JsonDocument.Parse(output);
         var curves = json.RootElement.GetProperty("curves");
         Assert.Equal(2, curves.GetArrayLength());
         var spread = curves[1];
-        Assert.Equal("INDU-BBB", spread.GetProperty("curve").GetString());
+        Assert.Equal("INDUSTRIAL-BBB", spread.GetProperty("curve").GetString());
         Assert.Equal("spread", spread.GetProperty("kind").GetString());
         Assert.Equal(4, spread.GetProperty("usedCount").GetInt32());
         Assert.Contains("g0", spread.GetProperty("parameters").EnumerateObject().Select(p => p.Name));
@@ -145,14 +145,14 @@ public class FitVerbTests
         Assert.Contains(spread.GetProperty("notes").EnumerateArray(), n => n.GetString()!.Contains("flat spread", StringComparison.Ordinal));
         Assert.Equal(0.0, spread.GetProperty("parameters").GetProperty("g1").GetDouble());
 
-        var (lenient, _, _) = CliRun.Invoke("fit", "--instruments", Instruments, "--quotes", CliRun.Data("quotes-close.csv"), "--spread-group", "UTIL-A", "--spread-min-instruments", "3");
+        var (lenient, _, _) = CliRun.Invoke("fit", "--instruments", Instruments, "--quotes", CliRun.Data("quotes-close.csv"), "--spread-group", "UTIL-A", "--spread-min-quotes", "3");
         Assert.Equal(0, lenient);
     }
 
     [Fact]
     public void Tight_gate_fails_the_government_curve()
     {
-        var (exit, output, _) = CliRun.Invoke("fit", "--instruments", Instruments, "--quotes", CliRun.Data("quotes-close.csv"), "--max-rmse-bp", "0.001");
+        var (exit, output, _) = CliRun.Invoke("fit", "--instruments", Instruments, "--quotes", CliRun.Data("quotes-close.csv"), "--base-max-rmse-bp", "0.001");
 
         Assert.Equal(4, exit);
         Assert.Contains("FAILED", output, StringComparison.Ordinal);
@@ -169,5 +169,75 @@ public class FitVerbTests
         {
             Assert.Contains(text, output, StringComparison.Ordinal);
         }
+    }
+
+    [Theory]
+    [InlineData("1..30", 30)]
+    [InlineData("1,2,5,10,30", 5)]
+    [InlineData("3M,1..3,10Y", 5)]
+    public void Tenors_the_user_asks_for_are_printed_and_the_year_basis_is_stated(string tenors, int count)
+    {
+        var (exit, output, error) = CliRun.Invoke("fit", "--instruments", Instruments, "--quotes", CliRun.Data("quotes-close.csv"), "--tenors", tenors, "--json");
+
+        Assert.True(exit == 0, error);
+        using var json = JsonDocument.Parse(output);
+        var points = json.RootElement.GetProperty("curves")[0].GetProperty("points").EnumerateArray().Select(p => p.GetProperty("years").GetDouble()).ToArray();
+        Assert.Equal(count, points.Length);
+        Assert.Equal(points.Order().ToArray(), points);
+        // Curve time is ACT/365F years from the valuation date (DEVELOPERS.md, Conventions: CurveTime).
+        Assert.Equal("ACT/365F years from the valuation date 2026-06-02", json.RootElement.GetProperty("yearBasis").GetString());
+
+        var (_, table, _) = CliRun.Invoke("fit", "--instruments", Instruments, "--quotes", CliRun.Data("quotes-close.csv"), "--tenors", tenors);
+        Assert.Contains("curve time: ACT/365F years from the valuation date 2026-06-02", table, StringComparison.Ordinal);
+    }
+
+    [Theory]
+    [InlineData("1..")]
+    [InlineData("30..1")]
+    [InlineData("ten")]
+    [InlineData("0")]
+    public void Bad_tenors_are_refused_naming_the_option(string tenors)
+    {
+        var (exit, _, error) = CliRun.Invoke("fit", "--instruments", Instruments, "--quotes", CliRun.Data("quotes-close.csv"), "--tenors", tenors);
+
+        Assert.Equal(1, exit);
+        Assert.StartsWith($"--tenors: '{tenors}'", error, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Par_yield_fit_marks_the_points_it_left_out()
+    {
+        using var temp = new TempFolder();
+        // The 2Y point blank: not published that day (as the Treasury file leaves 2M and 4M blank before 2018).
+        var par = temp.Edited("par-yields.csv", line => line.Contains(",2Y,", StringComparison.Ordinal) ? line[..(line.LastIndexOf(',') + 1)] : line);
+
+        var (exit, output, error) = CliRun.Invoke("fit", "--par-yields", par, "--json");
+
+        Assert.True(exit == 0, error);
+        using var json = JsonDocument.Parse(output);
+        var residuals = json.RootElement.GetProperty("curves")[0].GetProperty("residuals").EnumerateArray().ToArray();
+        var twoYear = residuals.Single(r => r.GetProperty("id").GetString() == "2Y");
+        Assert.False(twoYear.GetProperty("used").GetBoolean());
+        Assert.Equal(JsonValueKind.Null, twoYear.GetProperty("yieldPct").ValueKind);
+        Assert.Equal(10, residuals.Count(r => r.GetProperty("used").GetBoolean()));
+
+        var (_, table, _) = CliRun.Invoke("fit", "--par-yields", par);
+        var row = table.Split('\n').Single(l => l.Contains(" 2Y ", StringComparison.Ordinal) && l.Contains("left out", StringComparison.Ordinal));
+        Assert.Contains("left out: no published yield", row, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Par_yield_fit_has_its_own_gate()
+    {
+        var (exit, output, error) = CliRun.Invoke("fit", "--par-yields", CliRun.Data("par-yields.csv"), "--base-max-rmse-bp", "0.0001", "--json");
+
+        Assert.True(exit == 0, error); // the bond-fit gate does not apply to a par-yield fit
+        using var json = JsonDocument.Parse(output);
+        var gate = json.RootElement.GetProperty("curves")[0].GetProperty("gate");
+        Assert.Equal(10, gate.GetProperty("maxRmseBp").GetDouble()); // GateOptions.ParYieldDefaults
+        Assert.Equal(30, gate.GetProperty("maxAbsErrorBp").GetDouble());
+
+        var (strict, _, _) = CliRun.Invoke("fit", "--par-yields", CliRun.Data("par-yields.csv"), "--par-max-rmse-bp", "0.0001");
+        Assert.Equal(4, strict);
     }
 }

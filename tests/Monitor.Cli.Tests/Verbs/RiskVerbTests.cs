@@ -105,7 +105,7 @@ public class RiskVerbTests
         var (exit, output, _) = CliRun.Invoke(Args());
 
         Assert.Equal(0, exit);
-        foreach (var text in new[] { "valuation date 2026-06-02", "KST-2035-03", "CREDIT-IG", "DV01", "base slope", "spread curvature", "|book - sum|", "C level" })
+        foreach (var text in new[] { "valuation date 2026-06-02", "KWS-2035-03", "CREDIT-IG", "DV01", "base slope", "spread curvature", "|book - sum|", "C level" })
         {
             Assert.Contains(text, output, StringComparison.Ordinal);
         }

@@ -16,7 +16,7 @@ public sealed class RandomMessagePropertyTests(ITestOutputHelper output)
 {
     private const int Seed = 20260601;
     private static readonly string[] Books = ["RATES-CORE", "RATES-CURVE", "CREDIT-IG", "NO-SUCH-BOOK", "", " ", "rates-core"];
-    private static readonly string[] Instruments = ["VGB-2034-11", "VGB-2028-05", "QFU-2029-03", "KST-2035-03", "XX-0000", "", "vgb-2034-11"];
+    private static readonly string[] Instruments = ["VGB-2034-11", "VGB-2028-05", "QFU-2029-03", "KWS-2035-03", "XX-0000", "", "vgb-2034-11"];
     private static readonly string?[] Actions = ["new", "amend", "cancel", "NEW", " Cancel ", "buy", "", null];
     private static readonly double[] Faces = [1_000_000, -500_000, 2_500_000, 0, double.NaN, double.PositiveInfinity, double.NegativeInfinity, 1e13, -1e13, double.Epsilon];
     private static readonly double?[] Prices = [99.5, 101.25, 100, 0, -1, double.NaN, double.PositiveInfinity, 1e5, 1e-300, null];

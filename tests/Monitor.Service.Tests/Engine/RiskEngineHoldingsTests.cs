@@ -100,7 +100,7 @@ public sealed class RiskEngineHoldingsTests : IDisposable
     public void A_spread_refit_rebuilds_its_own_rows_and_revalues_only_the_books_holding_the_group()
     {
         var engine = OpenedEngine();
-        var credit = Tradable(engine).First(id => engine.Instruments[id].SpreadGroup == "INDU-BBB");
+        var credit = Tradable(engine).First(id => engine.Instruments[id].SpreadGroup == "INDUSTRIAL-BBB");
         var government = Tradable(engine).First(id => engine.Instruments[id].SpreadGroup is null);
         engine.LoadPosition("B1", credit, 5_000_000);
         engine.LoadPosition("B2", government, 5_000_000);
@@ -109,12 +109,12 @@ public sealed class RiskEngineHoldingsTests : IDisposable
         engine.RevalueAll(TestMarket.Now);
         var builds = engine.InstrumentRowBuilds;
 
-        var groupQuotes = TestMarket.OpenQuotes().Where(q => engine.Instruments[q.InstrumentId].SpreadGroup == "INDU-BBB").ToArray();
+        var groupQuotes = TestMarket.OpenQuotes().Where(q => engine.Instruments[q.InstrumentId].SpreadGroup == "INDUSTRIAL-BBB").ToArray();
         var result = Refit(engine, TestMarket.Shifted(groupQuotes, -0.4, TestMarket.Now.AddMinutes(-10)));
 
         var fit = Assert.Single(result.Curves);
         Assert.True(fit.Accepted);
-        Assert.Equal("INDU-BBB", fit.CurveKey);
+        Assert.Equal("INDUSTRIAL-BBB", fit.CurveKey);
         Assert.Equal(["B1", "B2"], result.Books.Select(b => b.Book).Order(StringComparer.Ordinal));
         Assert.Equal(builds + 1, engine.InstrumentRowBuilds); // the group's rows; the government rows are still current
         AssertMatchesReference(engine);
@@ -131,14 +131,14 @@ public sealed class RiskEngineHoldingsTests : IDisposable
 
         // B1 closes the position, then the bond is redefined: another coupon, maturity and curve key.
         engine.LoadPosition("B1", "VGB-2040-03", -10_000_000);
-        engine.DefineInstrument(Bond("VGB-2040-03", "INDU-BBB", 0.045m, new DateOnly(2037, 9, 15)));
+        engine.DefineInstrument(Bond("VGB-2040-03", "INDUSTRIAL-BBB", 0.045m, new DateOnly(2037, 9, 15)));
         engine.LoadPosition("B2", "VGB-2040-03", 4_000_000);
         engine.RevalueAll(TestMarket.Now);
 
-        Assert.Equal(["INDU-BBB"], engine.Books["B2"].CurveKeys);
+        Assert.Equal(["INDUSTRIAL-BBB"], engine.Books["B2"].CurveKeys);
         Assert.Empty(engine.Books["B1"].CurveKeys);
         Assert.NotEqual(before, engine.Books["B2"].Exposures!.Totals[ExposureMeasure.MarketValue]);
-        Assert.True(engine.Books["B2"].Exposures!.BySpreadGroup["INDU-BBB"][ExposureMeasure.SpreadLevel] > 0);
+        Assert.True(engine.Books["B2"].Exposures!.BySpreadGroup["INDUSTRIAL-BBB"][ExposureMeasure.SpreadLevel] > 0);
         AssertMatchesReference(engine);
     }
 
@@ -289,7 +289,7 @@ public sealed class RiskEngineHoldingsTests : IDisposable
         var engine = EngineFactory.Create(options, new ManualClock(TestMarket.Now));
         Refit(engine, TestMarket.OpenQuotes());
         Assert.NotNull(engine.Curves[CurveKey.Government].Curve);
-        Assert.NotNull(engine.Curves["INDU-BBB"].Curve);
+        Assert.NotNull(engine.Curves["INDUSTRIAL-BBB"].Curve);
         return engine;
     }
 
@@ -302,9 +302,9 @@ public sealed class RiskEngineHoldingsTests : IDisposable
         return engine.RefitDirtyCurves(TestMarket.Now);
     }
 
-    /// <summary>Bonds on a fitted curve (government and INDU-BBB), so books holding them are always valued.</summary>
+    /// <summary>Bonds on a fitted curve (government and INDUSTRIAL-BBB), so books holding them are always valued.</summary>
     private static string[] Tradable(RiskEngine engine) =>
-        [.. engine.Instruments.Values.Where(b => b.SpreadGroup is null || b.SpreadGroup == "INDU-BBB").Select(b => b.Id).Order(StringComparer.Ordinal)];
+        [.. engine.Instruments.Values.Where(b => b.SpreadGroup is null || b.SpreadGroup == "INDUSTRIAL-BBB").Select(b => b.Id).Order(StringComparer.Ordinal)];
 
     /// <summary>0.1m to 30m face, long or short (never 0: a trade of nothing is refused).</summary>
     private static double Face(Random random) => (random.Next(2) == 0 ? -1 : 1) * random.Next(1, 301) * 100_000.0;

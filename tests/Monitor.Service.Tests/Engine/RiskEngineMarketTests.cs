@@ -47,7 +47,7 @@ public sealed class RiskEngineMarketTests
     {
         // UTIL-A has three bonds in the example market, below the spread gate's minimum of four (SpreadMinQuotes; a
         // Nelson-Siegel curve has four parameters). Issue 11: no fit is tried, so no rejection is reported; the
-        // government and INDU-BBB curves are still fitted, and the book holding UTIL-A waits for its curve.
+        // government and INDUSTRIAL-BBB curves are still fitted, and the book holding UTIL-A waits for its curve.
         var engine = TestMarket.Engine();
         foreach (var quote in TestMarket.OpenQuotes())
         {
@@ -56,7 +56,7 @@ public sealed class RiskEngineMarketTests
         var result = engine.RefitDirtyCurves(TestMarket.Now);
 
         Assert.DoesNotContain(result.Curves, c => c.CurveKey == "UTIL-A");
-        Assert.True(Assert.Single(result.Curves, c => c.CurveKey == "INDU-BBB").Accepted);
+        Assert.True(Assert.Single(result.Curves, c => c.CurveKey == "INDUSTRIAL-BBB").Accepted);
         Assert.Contains("CREDIT-IG", result.BooksAwaitingCurves);
         Assert.Empty(engine.DirtyCurves());
     }

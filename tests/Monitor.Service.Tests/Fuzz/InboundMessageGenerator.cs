@@ -83,7 +83,7 @@ internal sealed class InboundMessageGenerator(int seed, IReadOnlyList<string> bo
         {
             ["instrumentId"] = _random.Next(3) == 0 ? Pick(instruments) : "FZ-" + (++_serial).ToString(CultureInfo.InvariantCulture),
             ["issuer"] = "Fuzz Issuer",
-            ["spreadGroup"] = _random.Next(3) switch { 0 => null, 1 => "INDU-BBB", _ => "FZ-GROUP" },
+            ["spreadGroup"] = _random.Next(3) switch { 0 => null, 1 => "INDUSTRIAL-BBB", _ => "FZ-GROUP" },
             ["currency"] = "XTS",
             ["couponRate"] = Math.Round(0.08 * _random.NextDouble(), 4),
             ["frequency"] = new[] { 1, 2, 4, 12 }[_random.Next(4)],

@@ -19,12 +19,12 @@ public sealed class JournalRecoveryTests
     [
         Trade("R-1", 1, TradeAction.New, "RATES-CORE", "VGB-2030-08", 5_000_000, 98.5),
         Trade("R-2", 1, TradeAction.New, "RATES-CURVE", "VGB-2041-05", -3_000_000, 95.0),
-        Trade("C-1", 1, TradeAction.New, "CREDIT-IG", "BRS-2028-12", 2_000_000, 99.0),
+        Trade("C-1", 1, TradeAction.New, "CREDIT-IG", "BHS-2028-12", 2_000_000, 99.0),
         Trade("R-1", 2, TradeAction.Amend, "RATES-CURVE", "VGB-2030-08", 7_000_000, 98.6),
         Trade("R-1", 2, TradeAction.Amend, "RATES-CURVE", "VGB-2030-08", 7_000_000, 98.6), // redelivery
         Trade("R-2", 2, TradeAction.Cancel, "RATES-CURVE", "VGB-2041-05", -3_000_000, 95.0),
         Trade("R-1", 1, TradeAction.New, "RATES-CORE", "VGB-2030-08", 5_000_000, 98.5), // older version, late
-        Trade("C-2", 1, TradeAction.New, "CREDIT-IG", "KST-2030-09", -1_000_000, 100.2),
+        Trade("C-2", 1, TradeAction.New, "CREDIT-IG", "KWS-2030-09", -1_000_000, 100.2),
     ];
 
     [Fact]
