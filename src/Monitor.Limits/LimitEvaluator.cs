@@ -24,6 +24,11 @@ public static class LimitEvaluator
     /// <exception cref="ArgumentOutOfRangeException">Utilisation is NaN (it would silently read as Within).</exception>
     public static LimitStatus Next(LimitStatus previous, double utilisation, double warningFraction, double hysteresisFraction)
     {
+        if (previous is not (LimitStatus.Within or LimitStatus.Warning or LimitStatus.Breach))
+        {
+            throw new ArgumentOutOfRangeException(nameof(previous), previous, "A retired or expired limit is no longer judged.");
+        }
+
         if (double.IsNaN(utilisation))
         {
             throw new ArgumentOutOfRangeException(nameof(utilisation), utilisation, "Utilisation must be a number, got NaN.");
@@ -49,6 +54,22 @@ public static class LimitEvaluator
 
         return new LimitStatusChange(limit.Id, limit.Scope, limit.Measure, previous, current, exposure,
             limit.BoundFor(exposure) ?? limit.Upper ?? limit.Lower ?? 0.0, utilisation);
+    }
+
+    /// <summary>
+    /// The last change of a limit that leaves the set (<paramref name="end"/> is <see cref="LimitStatus.Retired"/> or
+    /// <see cref="LimitStatus.Expired"/>), on the scope's exposure at that moment, so its last standing is on record.
+    /// </summary>
+    public static LimitStatusChange End(LimitDefinition limit, LimitStatus previous, double exposure, LimitStatus end)
+    {
+        ArgumentNullException.ThrowIfNull(limit);
+        if (end is not (LimitStatus.Retired or LimitStatus.Expired))
+        {
+            throw new ArgumentOutOfRangeException(nameof(end), end, "A limit ends as Retired or Expired.");
+        }
+
+        return new LimitStatusChange(limit.Id, limit.Scope, limit.Measure, previous, end, exposure,
+            limit.BoundFor(exposure) ?? limit.Upper ?? limit.Lower ?? 0.0, limit.Utilisation(exposure));
     }
 
     private static LimitStatus Classify(double utilisation, double warningAt, double breachAt) =>

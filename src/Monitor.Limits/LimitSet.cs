@@ -167,7 +167,10 @@ public sealed class LimitSet
         }
     }
 
-    /// <summary>Removes the temporary limits that expired at or before <paramref name="asOf"/>, returning them with their last status.</summary>
+    /// <summary>
+    /// Removes the temporary limits that expired at or before <paramref name="asOf"/> (the business clock, given by the
+    /// caller), returning each with its last status and its final change to <see cref="LimitStatus.Expired"/>.
+    /// </summary>
     public IReadOnlyList<ExpiredLimit> RemoveExpired(DateTimeOffset asOf)
     {
         var expired = _limits.Values.Where(l => !l.IsActiveAt(asOf)).ToList();
@@ -176,7 +179,7 @@ public sealed class LimitSet
             return [];
         }
 
-        var result = expired.Select(l => new ExpiredLimit(l, _statuses[l.Id])).ToList();
+        var result = expired.Select(l => new ExpiredLimit(l, _statuses[l.Id], Ended(l, LimitStatus.Expired))).ToList();
         var kept = _limits.Values.Where(l => l.IsActiveAt(asOf)).ToList();
         Install(kept);
         foreach (var l in expired)
@@ -196,9 +199,11 @@ public sealed class LimitSet
         }).ToList();
 
     /// <summary>
-    /// Replaces the hierarchy and definitions (configuration reload). Unchanged limits keep their status;
-    /// modified limits start from their previous status, added limits from Within; then every active limit
-    /// is re-evaluated against the current exposures, which reports any status the new definitions move.
+    /// Replaces the hierarchy and definitions (configuration reload). Each removed limit ends with a change to
+    /// <see cref="LimitStatus.Retired"/> on its scope's exposure before the reload (so a breach it held ends on record).
+    /// Unchanged limits keep their status; modified limits start from their previous status, added limits from Within;
+    /// then every active limit is re-evaluated against the current exposures, which reports any status the new
+    /// definitions move.
     /// Exposures of books the new hierarchy does not list are dropped.
     /// </summary>
     /// <exception cref="LimitConfigurationException">The new configuration is invalid; the current one stays in force.</exception>
@@ -215,6 +220,8 @@ public sealed class LimitSet
         var modified = list.Where(l => _limits.TryGetValue(l.Id, out var old) && old != l)
             .Select(l => new LimitModification(_limits[l.Id], l)).ToList();
         var dropped = _reported.Keys.Where(b => !hierarchy.ContainsBook(b)).ToList();
+        // Judged on the old hierarchy, before any figures are dropped: the standing the limit leaves with.
+        var retired = removed.Select(l => Ended(l, LimitStatus.Retired)).ToList();
         var hierarchyChanged = !Hierarchy.SameTreeAs(hierarchy);
 
         Hierarchy = hierarchy;
@@ -243,9 +250,13 @@ public sealed class LimitSet
         }
 
         Install(list);
-        var changes = EvaluateScopes(_limitsByScope.Keys.ToList(), asOf, commit: true);
-        return new LimitReloadResult(added, removed, modified, dropped, hierarchyChanged, changes);
+        retired.AddRange(EvaluateScopes(_limitsByScope.Keys.ToList(), asOf, commit: true));
+        return new LimitReloadResult(added, removed, modified, dropped, hierarchyChanged, retired, list.Count);
     }
+
+    /// <summary>The final change of a limit leaving the set, on its scope's current exposure.</summary>
+    private LimitStatusChange Ended(LimitDefinition limit, LimitStatus end) =>
+        LimitEvaluator.End(limit, _statuses[limit.Id], ExposureOf(limit.Scope, limit.Measure, limit.SpreadGroup), end);
 
     private IReadOnlyList<LimitScope> CheckBookUpdate(string bookId, BookExposures exposures)
     {

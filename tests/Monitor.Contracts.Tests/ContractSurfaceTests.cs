@@ -93,6 +93,13 @@ public class ContractSurfaceTests
           required String ScopeId
           required String Status
           required Double Utilisation
+        record Monitor.Contracts.V1.LimitsReloadFlagged
+          required Int32 LimitCount
+          required DateTimeOffset ProcessedAt
+          required IReadOnlyList<String> Reasons
+          required IReadOnlyList<String> RemovedLimitIds
+          required String Sha256
+          required String Source
         record Monitor.Contracts.V1.ParYieldPoint
           required Double ParYield
           required String Tenor

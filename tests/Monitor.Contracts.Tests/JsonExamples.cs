@@ -11,6 +11,7 @@ internal static class JsonExamples
     [
         "InstrumentDefined", "BondQuoted", "ParYieldsPublished", "TradeBooked",
         "CurveFitted", "CurveRejected", "BookExposuresBatch", "BookExposuresUpdated", "LimitStatusChanged",
+        "LimitsReloadFlagged",
     ];
 
     /// <summary>Web defaults (camelCase, case-insensitive read), strict about unknown and null-for-non-nullable fields.</summary>

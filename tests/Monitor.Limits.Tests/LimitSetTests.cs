@@ -143,6 +143,7 @@ public class LimitSetTests
         Assert.Empty(set.CurrentUse(Now.AddHours(1)));
         var expired = Assert.Single(set.RemoveExpired(Now.AddHours(2)));
         Assert.Equal(("temp", LimitStatus.Breach), (expired.Limit.Id, expired.LastStatus));
+        Assert.Equal((LimitStatus.Breach, LimitStatus.Expired, 1.0), (expired.Change.Previous, expired.Change.Current, expired.Change.Exposure));
         Assert.Empty(set.Limits);
     }
 
@@ -158,7 +159,7 @@ public class LimitSetTests
     }
 
     // Reload: unchanged limits keep their status, modified ones are re-evaluated from their previous
-    // status, added ones from Within, removed ones are gone.
+    // status, added ones from Within, removed ones end as Retired and are gone.
     [Fact]
     public void Reload_reports_added_removed_modified_and_keeps_unchanged_statuses()
     {
@@ -183,7 +184,8 @@ public class LimitSetTests
         Assert.False(result.HierarchyChanged);
         Assert.Empty(result.DroppedBooks);
         Assert.Equal(
-            [("book-long", LimitStatus.Within, LimitStatus.Warning), ("desk-rates", LimitStatus.Breach, LimitStatus.Within)],
+            [("book-long", LimitStatus.Within, LimitStatus.Warning), ("desk-credit", LimitStatus.Within, LimitStatus.Retired),
+                ("desk-rates", LimitStatus.Breach, LimitStatus.Within), ("firm-mv", LimitStatus.Within, LimitStatus.Retired)],
             result.StatusChanges.Select(c => (c.LimitId, c.Previous, c.Current)).OrderBy(t => t.LimitId));
         Assert.Equal(LimitStatus.Warning, set.StatusOf("book-short"));
         Assert.Throws<KeyNotFoundException>(() => set.StatusOf("desk-credit"));
@@ -218,7 +220,7 @@ public class LimitSetTests
         Assert.True(result.HierarchyChanged);
         Assert.Equal(["credit-bbb"], result.DroppedBooks);
         Assert.Equal(200, set.ExposureOf(LimitScope.Firm("demo-firm"), ExposureMeasure.Dv01));
-        var change = Assert.Single(result.StatusChanges);
+        var change = Assert.Single(result.StatusChanges, c => c.Current != LimitStatus.Retired);
         Assert.Equal(200, change.Exposure);
         Assert.Equal(LimitStatus.Breach, change.Current);
     }

@@ -1,6 +1,7 @@
 using Microsoft.Extensions.Configuration;
 using Microsoft.Extensions.Options;
 using Monitor.Service.Audit;
+using Monitor.Service.Storage;
 
 namespace Monitor.Cli.Hosting;
 
@@ -18,6 +19,14 @@ internal static class StartupFailure
         Collect(exception, found, configuration);
         return found.Distinct(StringComparer.Ordinal).ToArray();
     }
+
+    /// <summary>The refused writer lock inside <paramref name="exception"/> (another instance writes the folder), or null.</summary>
+    public static FolderInUseException? FolderInUse(Exception exception) => exception switch
+    {
+        FolderInUseException inUse => inUse,
+        AggregateException aggregate => aggregate.InnerExceptions.Select(FolderInUse).FirstOrDefault(e => e is not null),
+        _ => exception.InnerException is { } inner ? FolderInUse(inner) : null,
+    };
 
     private static void Collect(Exception exception, List<string> found, IConfiguration? configuration)
     {

@@ -313,6 +313,8 @@ internal static class LoadRunner
         }
     }
 
+    // Bus.Factory builds the bus without AddMassTransit: MassTransit's usage tracker is never looked up, so this bus
+    // reports no usage telemetry (the in-process service turns it off in ServiceRegistration: Hosting/UsageReportingOff).
     private static IBusControl PublisherBus(BrokerAddress broker, Action<IRabbitMqBusFactoryConfigurator>? endpoints) =>
         Bus.Factory.CreateUsingRabbitMq(cfg =>
         {

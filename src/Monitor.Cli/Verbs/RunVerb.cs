@@ -8,11 +8,15 @@ namespace Monitor.Cli.Verbs;
 
 /// <summary>
 /// <c>monitor run [--config FILE]</c>: runs the service until Ctrl+C (or SIGTERM), which stops it cleanly and writes the
-/// day-end snapshot. Exit 0 after a clean stop, 2 when the configuration is refused (the reasons go to stderr).
+/// day-end snapshot. Exit 0 after a clean stop, 2 when the configuration is refused or a folder is in use by another instance (the reasons go
+/// to stderr), 5 when a fault stopped the service.
 /// </summary>
 internal static class RunVerb
 {
     public const int ConfigurationRefused = 2;
+
+    /// <summary>Exit code when a fault stopped the running service (never 0 after a fault).</summary>
+    public const int ServiceFaulted = 5;
 
     public static Command Create()
     {
@@ -57,33 +61,57 @@ internal static class RunVerb
         }
         using (host)
         {
-            var configuration = host.Services.GetRequiredService<IConfiguration>();
-            try
+            return await RunHostAsync(host, configFile.FullName, error, cancellationToken).ConfigureAwait(false);
+        }
+    }
+
+    /// <summary>
+    /// Runs a built host until it stops: 0 after a clean stop, <see cref="ConfigurationRefused"/> when the start is refused
+    /// (bad configuration, a folder another instance writes), <see cref="ServiceFaulted"/> when a fault stopped it.
+    /// </summary>
+    internal static async Task<int> RunHostAsync(IHost host, string configFile, TextWriter error, CancellationToken cancellationToken)
+    {
+        var configuration = host.Services.GetRequiredService<IConfiguration>();
+        try
+        {
+            MonitorHost.ValidateOptions(host.Services);
+            if (host.Services.GetService<BrokerStartLogFilter>() is { } brokerStart)
             {
-                MonitorHost.ValidateOptions(host.Services);
-                host.Services.GetRequiredService<IHostApplicationLifetime>().ApplicationStarted.Register(host.Services.GetRequiredService<BrokerStartLogFilter>().Started);
-                await host.RunAsync(cancellationToken).ConfigureAwait(false);
-                return 0;
+                host.Services.GetRequiredService<IHostApplicationLifetime>().ApplicationStarted.Register(brokerStart.Started);
             }
-            catch (Exception ex)
+            // Not RunAsync: it disposes the host, and the faults are read from its services below.
+            await host.StartAsync(cancellationToken).ConfigureAwait(false);
+            await host.WaitForShutdownAsync(cancellationToken).ConfigureAwait(false);
+        }
+        catch (Exception ex)
+        {
+            if (BrokerStartFailure.Describe(ex, configuration) is { } broker)
             {
-                if (BrokerStartFailure.Describe(ex, configuration) is { } broker)
-                {
-                    await error.WriteLineAsync(broker).ConfigureAwait(false);
-                    return ConfigurationRefused;
-                }
-                var problems = StartupFailure.ConfigurationProblems(ex, configuration);
-                if (problems.Count == 0)
-                {
-                    throw;
-                }
-                await error.WriteLineAsync($"monitor run: the configuration in {configFile.FullName} was refused:").ConfigureAwait(false);
-                foreach (var problem in problems)
-                {
-                    await error.WriteLineAsync($"  {problem}").ConfigureAwait(false);
-                }
+                await error.WriteLineAsync(broker).ConfigureAwait(false);
                 return ConfigurationRefused;
             }
+            if (StartupFailure.FolderInUse(ex) is { } inUse)
+            {
+                await error.WriteLineAsync($"monitor run: {inUse.Message}").ConfigureAwait(false);
+                return ConfigurationRefused;
+            }
+            var problems = StartupFailure.ConfigurationProblems(ex, configuration);
+            if (problems.Count == 0)
+            {
+                throw;
+            }
+            await error.WriteLineAsync($"monitor run: the configuration in {configFile} was refused:").ConfigureAwait(false);
+            foreach (var problem in problems)
+            {
+                await error.WriteLineAsync($"  {problem}").ConfigureAwait(false);
+            }
+            return ConfigurationRefused;
         }
+        var faults = HostFaults.Of(host.Services);
+        foreach (var (service, fault) in faults)
+        {
+            await error.WriteLineAsync($"monitor run: stopped by a fault in {service}: {fault.GetType().Name}: {fault.Message}").ConfigureAwait(false);
+        }
+        return faults.Count == 0 ? 0 : ServiceFaulted;
     }
 }

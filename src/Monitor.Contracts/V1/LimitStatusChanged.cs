@@ -16,7 +16,7 @@ public sealed record LimitStatusChanged
     /// <summary>A measure name as in <see cref="BookExposuresUpdated.Measures"/>.</summary>
     public required string Measure { get; init; }
 
-    /// <summary>"within", "warning" or "breach".</summary>
+    /// <summary>"within", "warning" or "breach"; "retired" (removed by a limits reload) or "expired" (a temporary limit past its expiry) as a limit's last change.</summary>
     public required string Status { get; init; }
 
     /// <summary>"within", "warning" or "breach".</summary>

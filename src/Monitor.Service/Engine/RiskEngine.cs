@@ -308,6 +308,13 @@ public sealed class RiskEngine
         return reload;
     }
 
+    /// <summary>
+    /// Ends the temporary limits whose <c>expiresAt</c> the business clock (<paramref name="now"/>) has passed: each leaves
+    /// the limit set with a change to <see cref="LimitStatus.Expired"/>. Empty when none expired.
+    /// </summary>
+    public IReadOnlyList<LimitStatusChange> ExpireLimits(DateTimeOffset now) =>
+        _limits.RemoveExpired(now).Select(e => e.Change).ToArray();
+
     /// <summary>Revalues every book (start of day, end of day, after a reload).</summary>
     public EngineResult RevalueAll(DateTimeOffset now)
     {

@@ -64,9 +64,11 @@ public static class EngineFactory
         {
             throw new OptionsValidationException(MonitorOptions.SectionName, typeof(MonitorOptions), [$"Monitor:LimitsFile '{path}': {ex.Message}"]);
         }
-        catch (IOException ex)
+        catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
         {
-            throw new OptionsValidationException(MonitorOptions.SectionName, typeof(MonitorOptions), [$"Monitor:LimitsFile: cannot read '{path}' ({ex.Message})."]);
+            // With no good limits there is nothing to judge the books by: the start stops (exit 2), naming the file and the fix.
+            throw new OptionsValidationException(MonitorOptions.SectionName, typeof(MonitorOptions),
+                [$"Monitor:LimitsFile: cannot read '{path}' ({ex.Message}); make it a limits file the service can read, or point the key at one."]);
         }
     }
 

@@ -3,6 +3,7 @@ using MassTransit;
 using Microsoft.Extensions.DependencyInjection;
 using Microsoft.Extensions.Logging;
 using Monitor.Contracts.V1;
+using MassTransit.Configuration;
 using Monitor.Service.Consumers;
 using Monitor.Service.Messaging;
 
@@ -48,8 +49,10 @@ public static class InboundEndpoints
         cfg.ReceiveEndpoint(queue, e =>
         {
             // Plain JSON is accepted beside MassTransit's envelope; a message without a content type is read as plain JSON.
-            // MassTransit's raw JSON deserializer, whose failures on a body that is not JSON become refusals naming a field.
-            e.AddDeserializer(new RefusingJsonDeserializer<TMessage>(refusals), isDefault: false);
+            // Both deserializers refuse a body above Transport:MaxMessageBytes before they parse it (SizeCheckedDeserializer); the
+            // plain-JSON one reads the message at once, so a body that is not JSON or a field of the wrong type is a refusal naming it.
+            e.AddDeserializer(new SizeCheckedSerializerFactory(new SystemTextJsonMessageSerializerFactory(), transport.MaxMessageBytes));
+            e.AddDeserializer(new SizeCheckedSerializerFactory(new RefusingJsonDeserializer<TMessage>(refusals), transport.MaxMessageBytes));
             e.DefaultContentType = new ContentType("application/json");
             e.ConcurrentMessageLimit = transport.ConcurrentMessageLimit;
             // Storage failures never reach this policy: the pipeline holds a failing write (Storage/StorageFaultGate) until it

@@ -46,7 +46,11 @@ public sealed class MonitorOptionsValidator : IValidateOptions<MonitorOptions>
             }
             return;
         }
-        if (!File.Exists(path))
+        if (Directory.Exists(path))
+        {
+            failures.Add($"{key}: '{path}' is a folder, not a file; give the path of the file itself.");
+        }
+        else if (!File.Exists(path))
         {
             failures.Add($"{key}: '{path}' does not exist; fix the path (relative paths start from {Environment.CurrentDirectory}).");
         }

@@ -1,7 +1,9 @@
 using MassTransit;
 using Microsoft.Extensions.Configuration;
 using Microsoft.Extensions.DependencyInjection;
+using Microsoft.Extensions.DependencyInjection.Extensions;
 using Microsoft.Extensions.Diagnostics.HealthChecks;
+using Microsoft.Extensions.Logging;
 using Microsoft.Extensions.Options;
 using Monitor.Service.Audit;
 using Monitor.Service.Engine;
@@ -31,6 +33,9 @@ public static class ServiceRegistration
         ArgumentNullException.ThrowIfNull(configuration);
         ArgumentNullException.ThrowIfNull(addBus);
         services.TryAddTimeProvider();
+        // First of the hosted services, so it stops last: the health file says Stopped only once everything else has stopped.
+        services.AddSingleton<HealthStatusFilePublisher>();
+        services.AddHostedService(sp => sp.GetRequiredService<HealthStatusFilePublisher>());
         services.AddOptions<MonitorOptions>().Bind(configuration.GetSection(MonitorOptions.SectionName)).ValidateOnStart();
         services.AddSingleton<IValidateOptions<MonitorOptions>, MonitorOptionsValidator>();
         services.AddOptions<TransportOptions>().Bind(configuration.GetSection(TransportOptions.SectionName)).ValidateOnStart();
@@ -53,22 +58,27 @@ public static class ServiceRegistration
                     journal.Folder = log.Value.Folder.TrimEnd('/', '\\') + "-journal";
                 }
             });
-        services.AddSingleton(sp => EngineRecovery.Start(
+        AddRetention(services, configuration);
+        // One writer per folder: taken before the journal is replayed or either folder written, held until disposal.
+        services.AddSingleton(sp => new WriterLocks(sp.GetRequiredService<IOptions<ExposureLogOptions>>().Value.Folder, sp.GetRequiredService<IOptions<JournalOptions>>().Value.Folder));
+        services.AddSingleton(sp => AfterWriterLocks(sp, () => EngineRecovery.Start(
             EngineFactory.Create(sp.GetRequiredService<IOptions<MonitorOptions>>().Value, sp.GetRequiredService<TimeProvider>()),
             sp.GetRequiredService<IOptions<JournalOptions>>().Value,
-            sp.GetRequiredService<TimeProvider>().GetUtcNow()));
+            sp.GetRequiredService<TimeProvider>().GetUtcNow())));
         services.AddSingleton(sp => sp.GetRequiredService<EngineRecovery>().Engine);
-        services.AddSingleton(sp => new TradeJournal(sp.GetRequiredService<IOptions<JournalOptions>>().Value, sp.GetRequiredService<TimeProvider>()));
-        services.AddSingleton(sp => new ExposureLogWriter(sp.GetRequiredService<IOptions<ExposureLogOptions>>().Value, sp.GetRequiredService<TimeProvider>()));
+        services.AddSingleton(sp => AfterWriterLocks(sp, () => new TradeJournal(sp.GetRequiredService<IOptions<JournalOptions>>().Value, sp.GetRequiredService<TimeProvider>())));
+        services.AddSingleton(sp => AfterWriterLocks(sp, () => new ExposureLogWriter(sp.GetRequiredService<IOptions<ExposureLogOptions>>().Value, sp.GetRequiredService<TimeProvider>())));
         // Every exposure log and journal append of the pipeline runs through the gate: a storage failure stalls, never faults a message.
         services.AddSingleton<StorageFaultGate>();
         services.AddSingleton<QuoteInbox>();
         services.AddSingleton<EventOutbox>();
         services.AddSingleton<RiskPipeline>();
+        services.AddSingleton<LimitsFileStatus>();
 
         var transport = configuration.GetSection(TransportOptions.SectionName).Get<TransportOptions>() ?? new TransportOptions();
         addBus(services, bus =>
         {
+            UsageReportingOff.Apply(bus);
             InboundEndpoints.AddConsumers(bus);
             extraConsumers?.Invoke(bus);
             if (transport.Kind == TransportKind.RabbitMq)
@@ -76,6 +86,7 @@ public static class ServiceRegistration
                 bus.UsingRabbitMq((context, cfg) =>
                 {
                     BrokerConnection.Configure(cfg, transport.Broker);
+                    ErrorQueueLimits.Configure(cfg, transport);
                     InboundEndpoints.Configure(context, cfg, transport);
                     cfg.ConfigureEndpoints(context);
                 });
@@ -106,18 +117,21 @@ public static class ServiceRegistration
         // Hosted services stop in reverse order, the bus last: the outbox drains while the broker is still connected.
         services.AddHostedService(sp => sp.GetRequiredService<EventOutbox>());
         services.AddHostedService<StartOfDayService>();
+        services.AddHostedService<RetentionAtStart>();
         services.AddHostedService<CurveRefitWorker>();
         services.AddHostedService<SnapshotWorker>();
         services.AddHostedService<LimitsFileWatcher>();
+        services.AddHostedService<LimitExpiryWorker>();
         services.AddHealthChecks()
             .AddCheck<ExposureLogHealthCheck>("exposure-log")
             .AddCheck<CurveHealthCheck>("curves")
             .AddCheck<JournalHealthCheck>("trade-journal")
             .AddCheck<EventOutboxHealthCheck>("event-outbox")
             .AddCheck<BusConnectionHealthCheck>(BusHealthCheckName)
-            .AddCheck<StorageHealthCheck>("storage");
+            .AddCheck<StorageHealthCheck>("storage")
+            .AddCheck<LimitsHealthCheck>("limits");
         // No HTTP endpoint: the reports are logged on each status change and written to Health:StatusFile when set.
-        services.AddSingleton<IHealthCheckPublisher, HealthStatusFilePublisher>();
+        services.AddSingleton<IHealthCheckPublisher>(sp => sp.GetRequiredService<HealthStatusFilePublisher>());
         services.AddOptions<HealthCheckPublisherOptions>().Configure<IOptions<HealthOptions>>((publisher, health) =>
         {
             publisher.Delay = TimeSpan.FromSeconds(1);
@@ -125,6 +139,36 @@ public static class ServiceRegistration
             publisher.Timeout = TimeSpan.FromSeconds(10);
         });
         return services;
+    }
+
+    /// <summary>Retention of the day files (Storage/DayFileRetention): options, the closed-day evidence (replaceable), the archiver.</summary>
+    private static void AddRetention(IServiceCollection services, IConfiguration configuration)
+    {
+        services.AddOptions<RetentionOptions>().Bind(configuration.GetSection(RetentionOptions.SectionName))
+            .PostConfigure<IOptions<ExposureLogOptions>>((retention, log) =>
+            {
+                if (string.IsNullOrWhiteSpace(retention.ArchiveFolder) && !string.IsNullOrWhiteSpace(log.Value.Folder))
+                {
+                    retention.ArchiveFolder = log.Value.Folder.TrimEnd('/', '\\') + "-archive";
+                }
+            })
+            .ValidateOnStart();
+        services.AddSingleton<IValidateOptions<RetentionOptions>>(sp => new RetentionOptionsValidator(() =>
+            (sp.GetRequiredService<IOptions<ExposureLogOptions>>().Value.Folder, sp.GetRequiredService<IOptions<JournalOptions>>().Value.Folder)));
+        services.TryAddSingleton<IClosedDays>(sp => new DayEndRecordClosedDays(sp.GetRequiredService<IOptions<ExposureLogOptions>>().Value.Folder));
+        services.AddSingleton(sp => new DayFileRetention(
+            sp.GetRequiredService<IOptions<RetentionOptions>>().Value,
+            sp.GetRequiredService<IOptions<ExposureLogOptions>>().Value.Folder,
+            sp.GetRequiredService<IOptions<JournalOptions>>().Value.Folder,
+            sp.GetRequiredService<IClosedDays>(),
+            sp.GetRequiredService<ILogger<DayFileRetention>>()));
+    }
+
+    /// <summary>Builds a service that reads or writes the log or journal folders only once their writer locks are held.</summary>
+    private static T AfterWriterLocks<T>(IServiceProvider services, Func<T> create)
+    {
+        _ = services.GetRequiredService<WriterLocks>();
+        return create();
     }
 
     private static void TryAddTimeProvider(this IServiceCollection services)

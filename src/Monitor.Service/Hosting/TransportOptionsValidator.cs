@@ -25,6 +25,18 @@ public sealed class TransportOptionsValidator : IValidateOptions<TransportOption
         {
             failures.Add($"Transport:ConcurrentMessageLimit: {options.ConcurrentMessageLimit} is outside 1..64; use 1 to keep message order.");
         }
+        if (options.MaxMessageBytes is < TransportOptions.MinMaxMessageBytes or > TransportOptions.MaxMaxMessageBytes)
+        {
+            failures.Add($"Transport:MaxMessageBytes: {options.MaxMessageBytes} is outside {TransportOptions.MinMaxMessageBytes}..{TransportOptions.MaxMaxMessageBytes}; use {TransportOptions.DefaultMaxMessageBytes} (64 KiB) unless a message of your own needs more.");
+        }
+        if (options.ErrorQueueMaxMessages is < 1 or > ErrorQueueLimits.MostMessages)
+        {
+            failures.Add($"Transport:ErrorQueueMaxMessages: {options.ErrorQueueMaxMessages} is outside 1..{ErrorQueueLimits.MostMessages}; use 10000.");
+        }
+        if (options.ErrorQueueMaxAge < ErrorQueueLimits.ShortestAge || options.ErrorQueueMaxAge > ErrorQueueLimits.LongestAge)
+        {
+            failures.Add($"Transport:ErrorQueueMaxAge: {options.ErrorQueueMaxAge} is outside {ErrorQueueLimits.ShortestAge}..{ErrorQueueLimits.LongestAge}; use 7.00:00:00 (7 days).");
+        }
         if (options.Kind == TransportKind.RabbitMq)
         {
             var broker = options.Broker;

@@ -62,7 +62,7 @@ public static class EventMapper
         ProcessedAt = now,
     };
 
-    /// <summary>Status names on the wire and in the log: within, warning, breach.</summary>
+    /// <summary>Status names on the wire and in the log: within, warning, breach; retired (removed by a reload), expired (a temporary limit past its expiry).</summary>
     public static string StatusName(LimitStatus status) => status.ToString().ToLowerInvariant();
 
     public static IReadOnlyList<CurveVersion> CurveVersions(RiskEngine engine) =>

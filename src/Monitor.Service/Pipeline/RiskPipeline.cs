@@ -130,6 +130,7 @@ public sealed partial class RiskPipeline
             var started = Stopwatch.GetTimestamp();
             var result = _engine.RefitDirtyCurves(now);
             _metrics.FitDuration.Record(Stopwatch.GetElapsedTime(started).TotalMilliseconds - result.ExposureMilliseconds);
+            result.StatusChanges.AddRange(_engine.ExpireLimits(now)); // a temporary limit past its expiry ends before the refit's figures are published
             foreach (var key in dirty)
             {
                 _pendingCause.Remove(key);
@@ -206,28 +207,70 @@ public sealed partial class RiskPipeline
         }
     }
 
-    /// <summary>Puts a new limits file in force, logs the change and publishes the status changes it causes.</summary>
-    public async Task<Limits.LimitReloadResult> ReloadLimitsAsync(Limits.LimitsConfiguration limits, string source, CancellationToken cancellationToken)
+    /// <summary>
+    /// Puts a new limits file in force, logs the change (the file's SHA-256, and the old and new definition of every limit
+    /// added, removed or modified) and publishes the status changes it causes: removed limits end as "retired". A reload
+    /// that removes every limit or a limit at warning or breach is flagged in its record and raises
+    /// <see cref="LimitsReloadFlagged"/>.
+    /// </summary>
+    public async Task<Limits.LimitReloadResult> ReloadLimitsAsync(Limits.LimitsConfiguration limits, string source, string sha256, CancellationToken cancellationToken)
     {
+        ArgumentNullException.ThrowIfNull(limits);
         await _gate.WaitAsync(cancellationToken).ConfigureAwait(false);
         try
         {
             var now = _time.GetUtcNow();
             var reload = _engine.ReloadLimits(limits, now);
             var cause = Cause.Internal("limits-file", now);
+            var flags = reload.Flags;
             var payload = new Dictionary<string, object?>
             {
                 ["source"] = source,
-                ["added"] = reload.Added.Select(l => l.Id).ToArray(),
-                ["removed"] = reload.Removed.Select(l => l.Id).ToArray(),
-                ["modified"] = reload.Modified.Select(m => m.After.Id).ToArray(),
+                ["sha256"] = sha256,
+                ["added"] = reload.Added.Select(LimitRecord.Of).ToArray(),
+                ["removed"] = reload.Removed.Select(LimitRecord.Of).ToArray(),
+                ["modified"] = reload.Modified.Select(LimitRecord.Of).ToArray(),
                 ["limits"] = limits.Limits.Count,
+                ["flagged"] = flags.ToArray(),
             };
             await _storage.RunAsync(StorageFaultGate.ExposureLog, () => _log.Append(ExposureLogKinds.LimitsReloaded, now, LogCause(cause), payload), cancellationToken).ConfigureAwait(false);
             var result = new EngineResult { CurvesUsed = _engine.CurvesInUse() };
             result.StatusChanges.AddRange(reload.StatusChanges);
-            await CommitAsync(result, cause, now, cancellationToken).ConfigureAwait(false);
+            object? alert = flags.Count == 0 ? null : new LimitsReloadFlagged
+            {
+                Source = source,
+                Sha256 = sha256,
+                Reasons = flags,
+                RemovedLimitIds = reload.Removed.Select(l => l.Id).ToArray(),
+                LimitCount = reload.LimitCount,
+                ProcessedAt = now,
+            };
+            await CommitAsync(result, cause, now, cancellationToken, alert).ConfigureAwait(false);
             return reload;
+        }
+        finally
+        {
+            _gate.Release();
+        }
+    }
+
+    /// <summary>
+    /// Ends the temporary limits the business clock has passed the expiry of (a change to "expired" each, with its record
+    /// and event). Called on a timer by <see cref="LimitExpiryWorker"/> and at each refit.
+    /// </summary>
+    public async Task<int> ExpireLimitsAsync(CancellationToken cancellationToken)
+    {
+        await _gate.WaitAsync(cancellationToken).ConfigureAwait(false);
+        try
+        {
+            var now = _time.GetUtcNow();
+            var result = new EngineResult { CurvesUsed = _engine.CurvesInUse() };
+            result.StatusChanges.AddRange(_engine.ExpireLimits(now));
+            if (result.StatusChanges.Count > 0)
+            {
+                await CommitAsync(result, Cause.Internal("limit-expiry", now), now, cancellationToken).ConfigureAwait(false);
+            }
+            return result.StatusChanges.Count;
         }
         finally
         {
@@ -262,12 +305,16 @@ public sealed partial class RiskPipeline
         }
     }
 
-    private async Task CommitAsync(EngineResult result, Cause cause, DateTimeOffset now, CancellationToken cancellationToken)
+    private async Task CommitAsync(EngineResult result, Cause cause, DateTimeOffset now, CancellationToken cancellationToken, object? alert = null)
     {
         var logCause = LogCause(cause);
         var batch = new ExposureLogBatch();
         var curves = EventMapper.CurveVersions(_engine);
         var messages = new List<object>();
+        if (alert is not null)
+        {
+            messages.Add(alert);
+        }
         foreach (var outcome in result.Curves)
         {
             var report = outcome.Result?.Report;

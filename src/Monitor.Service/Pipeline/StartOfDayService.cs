@@ -18,8 +18,12 @@ public sealed partial class StartOfDayService(RiskPipeline pipeline, EngineRecov
 {
     public async Task StartAsync(CancellationToken cancellationToken)
     {
-        var (date, books, instruments) = await pipeline.ReadAsync(e => (e.ValuationDate, e.Books.Count, e.Instruments.Count), cancellationToken).ConfigureAwait(false);
+        var (date, books, instruments, limits) = await pipeline.ReadAsync(e => (e.ValuationDate, e.Books.Count, e.Instruments.Count, e.Limits.Limits.Count), cancellationToken).ConfigureAwait(false);
         LogStarted(date, books, instruments);
+        if (limits == 0)
+        {
+            LogNoLimits(options.Value.LimitsFile);
+        }
         var replay = recovery.Result;
         if (replay.Applied + replay.Duplicates + replay.Superseded + replay.QuotesAccepted > 0 || recovery.Journal.Problems.Count > 0)
         {
@@ -64,6 +68,9 @@ public sealed partial class StartOfDayService(RiskPipeline pipeline, EngineRecov
 
     [LoggerMessage(Level = LogLevel.Information, Message = "Monitor started for valuation date {ValuationDate:yyyy-MM-dd}: {Books} books, {Instruments} instruments")]
     private partial void LogStarted(DateOnly valuationDate, int books, int instruments);
+
+    [LoggerMessage(Level = LogLevel.Warning, Message = "The limits file {Path} lists no limits: no book, desk or firm is judged until limits are given")]
+    private partial void LogNoLimits(string path);
 
     [LoggerMessage(Level = LogLevel.Information, Message = "Recovered from today's trade journal: {Applied} trades applied, {Duplicates} duplicates, {Superseded} superseded, {Quotes} quotes kept, {Rejected} refused")]
     private partial void LogRecovered(int applied, int duplicates, int superseded, int quotes, int rejected);

@@ -46,6 +46,27 @@ public sealed class HealthStatusFilePublisherTests
     }
 
     [Fact]
+    public async Task The_file_carries_its_write_time_says_Stopped_at_stop_and_its_missing_folder_is_created()
+    {
+        using var folder = new TempFolder();
+        var file = Path.Combine(folder.Path, "run", "health", "health.json"); // neither folder exists yet
+        var clock = new Microsoft.Extensions.Time.Testing.FakeTimeProvider(new DateTimeOffset(2026, 6, 1, 9, 30, 0, TimeSpan.Zero));
+        var publisher = new HealthStatusFilePublisher(
+            Options.Create(new HealthOptions { StatusFile = file }), clock, NullLogger<HealthStatusFilePublisher>.Instance);
+
+        await publisher.PublishAsync(Report(HealthStatus.Healthy, "storage writable"), CancellationToken.None);
+        var running = JsonNode.Parse(File.ReadAllText(file))!;
+        Assert.Equal(("Healthy", "2026-06-01T09:30:00.0000000+00:00"), ((string?)running["status"], (string?)running["writtenAt"]));
+
+        clock.Advance(TimeSpan.FromMinutes(5));
+        await publisher.StopAsync(CancellationToken.None);
+        await publisher.PublishAsync(Report(HealthStatus.Healthy, "a report that arrives after the stop"), CancellationToken.None);
+
+        var stopped = JsonNode.Parse(File.ReadAllText(file))!;
+        Assert.Equal((HealthStatusFilePublisher.Stopped, "2026-06-01T09:35:00.0000000+00:00"), ((string?)stopped["status"], (string?)stopped["writtenAt"]));
+    }
+
+    [Fact]
     public void A_period_under_a_second_is_refused_naming_the_key()
     {
         var failures = new HealthOptions { Period = TimeSpan.FromMilliseconds(200) }.Validate();

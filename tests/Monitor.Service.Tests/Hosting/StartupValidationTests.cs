@@ -33,6 +33,16 @@ public sealed class StartupValidationTests : IDisposable
     }
 
     [Fact]
+    public async Task A_folder_in_place_of_the_limits_file_stops_the_start_naming_the_key_and_the_fix()
+    {
+        var folder = _folder.Combine("limits.json");
+        Directory.CreateDirectory(folder); // no good limits at start: the start stops rather than run unjudged
+        var ex = await StartFails(s => s["Monitor:LimitsFile"] = folder);
+        Assert.Contains("Monitor:LimitsFile", ex.Message, StringComparison.Ordinal);
+        Assert.Contains("is a folder, not a file", ex.Message, StringComparison.Ordinal);
+    }
+
+    [Fact]
     public async Task A_negative_conflation_window_names_the_key()
     {
         var ex = await StartFails(s => s["Monitor:ConflationWindow"] = "-00:00:01");

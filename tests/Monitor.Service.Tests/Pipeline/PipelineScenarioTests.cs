@@ -273,7 +273,7 @@ public sealed class PipelineScenarioTests : IDisposable
         Assert.Equal(1, await service.Pipeline.ReadAsync(e => e.Trades.Count));
         Assert.False(await service.Harness.Published.Any<Fault<TradeBooked>>());
         // Exactly one complete trade record for L-1 in the exposure log (the failed attempt left at most a torn line).
-        var records = Directory.GetFiles(service.LogFolder).SelectMany(File.ReadAllLines)
+        var records = Directory.GetFiles(service.LogFolder, "*.jsonl").SelectMany(File.ReadAllLines) // not writer.lock: held share-none
             .Where(l => l.Contains("\"L-1\"", StringComparison.Ordinal) && IsJson(l)).ToArray();
         Assert.Single(records);
     }

@@ -88,7 +88,9 @@ public sealed class ServiceUnderTest : IAsyncDisposable
         {
             services.AddSingleton(sp => new ExposureLogWriter(sp.GetRequiredService<IOptions<ExposureLogOptions>>().Value, sp.GetRequiredService<TimeProvider>(), logStream));
         }
-        services.Configure<TestHarnessOptions>(o => o.TestInactivityTimeout = TimeSpan.FromSeconds(2));
+        // TestTimeout: past it the harness cancels its token and the stop (day-end snapshot) fails; tests that wait on the
+        // limits file's polling watcher run longer than the 30 s default on a loaded machine.
+        services.Configure<TestHarnessOptions>(o => (o.TestInactivityTimeout, o.TestTimeout) = (TimeSpan.FromSeconds(2), TimeSpan.FromMinutes(2)));
         var provider = services.BuildServiceProvider(validateScopes: true);
         var service = new ServiceUnderTest(provider, folder, time, logFolder);
         await service.Harness.Start();
