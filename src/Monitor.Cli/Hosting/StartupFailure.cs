@@ -52,6 +52,9 @@ internal static class StartupFailure
                     found.AddRange(validation.Failures);
                 }
                 break;
+            case InvalidOperationException conversion when ConfigurationValueFix.Describe(conversion, configuration) is { } problem:
+                found.Add(problem);
+                break;
             case AggregateException aggregate:
                 foreach (var inner in aggregate.InnerExceptions)
                 {

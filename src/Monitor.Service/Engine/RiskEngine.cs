@@ -185,9 +185,8 @@ public sealed class RiskEngine
         }
         var government = _curves[CurveKey.Government];
         var governmentChanged = false;
-        if (government.Dirty)
+        if (government.Dirty && FitGovernment(government, now) is { } outcome)
         {
-            var outcome = FitGovernment(government, now);
             result.Curves.Add(outcome);
             governmentChanged = outcome.Accepted;
         }
@@ -257,9 +256,8 @@ public sealed class RiskEngine
         }
         foreach (var curve in _curves.Values.Where(c => !CurveKey.IsGovernment(c.Key)).OrderBy(c => c.Key, StringComparer.Ordinal))
         {
-            if (curve.Dirty || (governmentChanged && curve.LatestQuotes.Count > 0))
+            if ((curve.Dirty || (governmentChanged && curve.LatestQuotes.Count > 0)) && FitSpread(curve, government.Curve, now) is { } outcome)
             {
-                var outcome = FitSpread(curve, government.Curve, now);
                 result.Curves.Add(outcome);
                 if (outcome.Accepted || curve.Curve is null)
                 {
@@ -390,20 +388,44 @@ public sealed class RiskEngine
     public string CurvesInUse() =>
         string.Join(", ", _curves.Values.Where(c => c.Curve is not null).OrderBy(c => c.Key, StringComparer.Ordinal).Select(c => $"{c.Label} v{c.Version}"));
 
-    private CurveFitOutcome FitGovernment(CurveState curve, DateTimeOffset now)
+    /// <summary>Null when the curve has never been fitted and has fewer usable quotes than its gate's minimum: no fit is tried yet.</summary>
+    private CurveFitOutcome? FitGovernment(CurveState curve, DateTimeOffset now)
     {
         var (instruments, excluded) = FitInputs(curve, now);
+        if (TooFewForFirstFit(curve, instruments.Count, Settings.BaseGate))
+        {
+            return null;
+        }
         return Conclude(curve, () => _baseFitter.Fit(instruments, Settings.BaseFit, curve.Current?.Parameters, excluded), Settings.BaseGate, now, instruments.Count + excluded.Count);
     }
 
-    private CurveFitOutcome FitSpread(CurveState curve, IZeroCurve baseCurve, DateTimeOffset now)
+    private CurveFitOutcome? FitSpread(CurveState curve, IZeroCurve baseCurve, DateTimeOffset now)
     {
         if (!_spreadFitters.TryGetValue(curve.Key, out var fitter))
         {
             _spreadFitters[curve.Key] = fitter = new SpreadCurveFitter();
         }
         var (instruments, excluded) = FitInputs(curve, now);
+        if (TooFewForFirstFit(curve, instruments.Count, Settings.SpreadGate))
+        {
+            return null;
+        }
         return Conclude(curve, () => fitter.Fit(baseCurve, instruments, Settings.SpreadFit, curve.Current?.Parameters, excluded), Settings.SpreadGate, now, instruments.Count + excluded.Count);
+    }
+
+    /// <summary>
+    /// A curve without a fit waits, quietly, until it has the gate's minimum of usable quotes: a fit on fewer would only be
+    /// refused (a CurveRejected event and a warning for the first quote of the day). A fitted curve that falls below the
+    /// minimum is refitted and refused with the reason: that is news.
+    /// </summary>
+    private static bool TooFewForFirstFit(CurveState curve, int usable, FitQualityGate gate)
+    {
+        if (curve.Current is null && usable < gate.MinInstruments)
+        {
+            curve.Dirty = false; // the next quote marks it again
+            return true;
+        }
+        return false;
     }
 
     /// <summary>
@@ -648,7 +670,8 @@ public sealed class RiskEngine
         }
         catch (ArgumentException ex)
         {
-            throw new MessageRejectedException(quote.CleanMid is null ? "yield" : "midCleanPrice", (quote.CleanMid ?? quote.Yield)?.ToString("G", CultureInfo.InvariantCulture), ex.Message);
+            throw new MessageRejectedException(quote.CleanMid is null ? "yield" : "midCleanPrice", (quote.CleanMid ?? quote.Yield)?.ToString("G", CultureInfo.InvariantCulture),
+                RefusalText.Plain(ex, new Dictionary<string, string>(StringComparer.Ordinal)));
         }
         return new PricedQuote(quote, bond, settlement, priced.CleanPrice, priced.DirtyPrice, priced.Yield, priced.ModifiedDuration, priced.Times, priced.Amounts);
     }

@@ -364,6 +364,10 @@ public sealed partial class RiskPipeline
             batch.Add(ExposureLogKinds.StatusChange, cause.EventTime, logCause, payload);
             messages.Add(EventMapper.StatusChanged(change, curves, cause, now, provisional));
             _metrics.StatusChanges.Add(1);
+            // Also a line of the service log, in the event's words; a breach at Warning, other changes at Information.
+            LogLimitStatus(change.Current == Limits.LimitStatus.Breach ? LogLevel.Warning : LogLevel.Information, change.LimitId,
+                change.Scope.Level.ToString().ToLowerInvariant(), change.Scope.Id, Limits.LimitsFileParser.JsonName(change.Measure),
+                EventMapper.StatusName(change.Current), EventMapper.StatusName(change.Previous), change.Exposure, change.LimitValue);
         }
         // One fsync for the change's records, all on the disk before any of its events can be published.
         await WriteLogAsync(batch, cancellationToken).ConfigureAwait(false);
@@ -472,6 +476,9 @@ public sealed partial class RiskPipeline
 
     private static ExposureLogCause LogCause(Cause cause) =>
         new(string.IsNullOrEmpty(cause.MessageId) ? null : cause.MessageId, cause.MessageType);
+
+    [LoggerMessage(Message = "Limit {LimitId} ({Scope} {ScopeId}, {Measure}) is {Status}, was {PreviousStatus}: value {Value} against bound {Bound}")]
+    private partial void LogLimitStatus(LogLevel level, string limitId, string scope, string scopeId, string measure, string status, string previousStatus, double value, double bound);
 
     [LoggerMessage(Level = LogLevel.Information, Message = "Trade {TradeId} version {Version} ignored: {Outcome}")]
     private partial void LogTradeIgnored(string tradeId, int version, string outcome);

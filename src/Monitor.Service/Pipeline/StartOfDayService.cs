@@ -67,7 +67,16 @@ public sealed partial class StartOfDayService(
         }
     }
 
-    public Task StopAsync(CancellationToken cancellationToken) => Task.CompletedTask;
+    /// <summary>Stopped after the refit loop and the day-end snapshot (hosted services stop in reverse order), before the outbox and the bus.</summary>
+    /// <remarks>Reads nothing under the pipeline's lock: a write stalled by a failing disk may hold it.</remarks>
+    public Task StopAsync(CancellationToken cancellationToken)
+    {
+        LogStopped(recovery.Engine.ValuationDate);
+        return Task.CompletedTask;
+    }
+
+    [LoggerMessage(Level = LogLevel.Information, Message = "Monitor stopping for valuation date {ValuationDate:yyyy-MM-dd}: refits ended, day-end snapshot done; publishing what is left, then closing the bus")]
+    private partial void LogStopped(DateOnly valuationDate);
 
     [LoggerMessage(Level = LogLevel.Information, Message = "Monitor started for valuation date {ValuationDate:yyyy-MM-dd}: {Books} books, {Instruments} instruments")]
     private partial void LogStarted(DateOnly valuationDate, int books, int instruments);
@@ -75,7 +84,7 @@ public sealed partial class StartOfDayService(
     [LoggerMessage(Level = LogLevel.Warning, Message = "The limits file {Path} lists no limits: no book, desk or firm is judged until limits are given")]
     private partial void LogNoLimits(string path);
 
-    [LoggerMessage(Level = LogLevel.Warning, Message = "Recovered from today's trade journal: {Applied} trades applied, {Duplicates} duplicates, {Superseded} superseded, {Quotes} quotes kept, {Rejected} refused")]
+    [LoggerMessage(Level = LogLevel.Information, Message = "Recovered from today's trade journal: {Applied} trades applied, {Duplicates} duplicates, {Superseded} superseded, {Quotes} quotes kept, {Rejected} refused")]
     private partial void LogRecovered(int applied, int duplicates, int superseded, int quotes, int rejected);
 
     [LoggerMessage(Level = LogLevel.Warning, Message = "{Count} journalled trades had no trade-applied record (a crash between the journal and the log); written now with cause journal-replay")]

@@ -44,10 +44,11 @@ public sealed class RiskEngineMarketTests
     }
 
     [Fact]
-    public void A_spread_group_with_too_few_bonds_is_rejected_without_stopping_the_other_curves()
+    public void A_spread_group_with_too_few_bonds_waits_without_a_fit_and_without_stopping_the_other_curves()
     {
-        // UTIL-A has three bonds in the example market; a Nelson-Siegel spread curve needs four (fact of the model:
-        // four parameters). The rejection is reported; the government and INDUSTRIAL-BBB curves are still published.
+        // UTIL-A has three bonds in the example market, below the spread gate's minimum of four (SpreadMinQuotes; a
+        // Nelson-Siegel curve has four parameters). Issue 11: no fit is tried, so no rejection is reported; the
+        // government and INDUSTRIAL-BBB curves are still fitted, and the book holding UTIL-A waits for its curve.
         var engine = TestMarket.Engine();
         foreach (var quote in TestMarket.OpenQuotes())
         {
@@ -55,11 +56,21 @@ public sealed class RiskEngineMarketTests
         }
         var result = engine.RefitDirtyCurves(TestMarket.Now);
 
-        var util = Assert.Single(result.Curves, c => c.CurveKey == "UTIL-A");
-        Assert.False(util.Accepted);
-        Assert.Contains(util.Verdict.Reasons, r => r.Contains("4", StringComparison.Ordinal));
+        Assert.DoesNotContain(result.Curves, c => c.CurveKey == "UTIL-A");
         Assert.True(Assert.Single(result.Curves, c => c.CurveKey == "INDUSTRIAL-BBB").Accepted);
         Assert.Contains("CREDIT-IG", result.BooksAwaitingCurves);
+        Assert.Empty(engine.DirtyCurves());
+    }
+
+    [Fact]
+    public void The_first_quote_of_the_day_tries_no_fit()
+    {
+        var engine = TestMarket.Engine();
+        engine.AcceptQuote(TestMarket.OpenQuotes().First(q => q.InstrumentId.StartsWith("VGB", StringComparison.Ordinal)), TestMarket.Now);
+
+        var result = engine.RefitDirtyCurves(TestMarket.Now);
+
+        Assert.Empty(result.Curves);
         Assert.Empty(engine.DirtyCurves());
     }
 

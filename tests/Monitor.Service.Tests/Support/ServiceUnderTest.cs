@@ -69,7 +69,8 @@ public sealed class ServiceUnderTest : IAsyncDisposable
     /// <param name="logStream">Wraps each exposure-log day file's stream (to inject write failures).</param>
     /// <param name="root">A folder the caller keeps (to restart a service on the same log and journal); default a new temporary one.</param>
     /// <param name="extra">Settings added to (or replacing) the defaults, e.g. <c>Journal:AcceptLoss</c>.</param>
-    public static async Task<ServiceUnderTest> StartAsync(string? limitsFile = null, Func<Stream, Stream>? logStream = null, string? root = null, IReadOnlyDictionary<string, string?>? extra = null)
+    /// <param name="logging">Replaces the default logging (e.g. a Serilog logger with a capturing sink).</param>
+    public static async Task<ServiceUnderTest> StartAsync(string? limitsFile = null, Func<Stream, Stream>? logStream = null, string? root = null, IReadOnlyDictionary<string, string?>? extra = null, Action<IServiceCollection>? logging = null)
     {
         var folder = root is null ? new TempFolder() : null;
         var logFolder = Path.Combine(root ?? folder!.Path, "exposure-log");
@@ -81,7 +82,14 @@ public sealed class ServiceUnderTest : IAsyncDisposable
         var configuration = new ConfigurationBuilder().AddInMemoryCollection(settings).Build();
         var time = new FakeTimeProvider(TestMarket.Now);
         var services = new ServiceCollection();
-        services.AddLogging();
+        if (logging is null)
+        {
+            services.AddLogging();
+        }
+        else
+        {
+            logging(services);
+        }
         services.AddSingleton<TimeProvider>(time);
         services.AddMonitorServiceCore(configuration, null, static (s, bus) => s.AddMassTransitTestHarness(bus));
         if (logStream is not null)
