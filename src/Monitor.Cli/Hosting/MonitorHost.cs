@@ -4,7 +4,6 @@ using Microsoft.Extensions.DependencyInjection;
 using Microsoft.Extensions.Hosting;
 using Microsoft.Extensions.Options;
 using Monitor.Service.Audit;
-using Monitor.Service.Storage;
 using Monitor.Service.Consumers;
 using Monitor.Service.Hosting;
 using Monitor.Service.Journal;

@@ -179,9 +179,9 @@ public sealed class RiskEngine
     public EngineResult RefitDirtyCurves(DateTimeOffset now)
     {
         var result = new EngineResult();
-        if (Reference.Dirty)
+        if (Reference.Dirty && FitGovernment(Reference, now) is { } referenceOutcome)
         {
-            result.Curves.Add(FitGovernment(Reference, now)); // bond quotes' reference curve: no figures move
+            result.Curves.Add(referenceOutcome); // the reference curve: no figures move
         }
         var government = _curves[CurveKey.Government];
         var governmentChanged = false;

@@ -172,7 +172,7 @@ public static class ServiceRegistration
             .ValidateOnStart();
         services.AddSingleton<IValidateOptions<RetentionOptions>>(sp => new RetentionOptionsValidator(() =>
             (sp.GetRequiredService<IOptions<ExposureLogOptions>>().Value.Folder, sp.GetRequiredService<IOptions<JournalOptions>>().Value.Folder)));
-        services.TryAddSingleton<IClosedDays>(sp => new DayEndRecordClosedDays(sp.GetRequiredService<IOptions<ExposureLogOptions>>().Value.Folder));
+        services.TryAddSingleton<IClosedDays>(sp => new DayEndRecordClosedDays(sp.GetRequiredService<IOptions<ExposureLogOptions>>().Value.Folder, sp.GetRequiredService<RecordKey>()));
         services.AddSingleton(sp => new DayFileRetention(
             sp.GetRequiredService<IOptions<RetentionOptions>>().Value,
             sp.GetRequiredService<IOptions<ExposureLogOptions>>().Value.Folder,

@@ -4,10 +4,10 @@ namespace Monitor.Service.Storage;
 
 /// <summary>
 /// A day is closed when its exposure-log day file exists and its last complete record is a <c>day-end</c> record that
-/// parses with a matching hash (the service writes it when it stops). A day with only a journal file, a torn or
+/// parses with a MAC that holds under the record key (the service writes it when it stops). A day with only a journal file, a torn or
 /// foreign last line, or any other last record is open.
 /// </summary>
-public sealed class DayEndRecordClosedDays(string exposureLogFolder) : IClosedDays
+public sealed class DayEndRecordClosedDays(string exposureLogFolder, RecordKey key) : IClosedDays
 {
     public bool IsClosed(DateOnly day, out string why)
     {
@@ -23,13 +23,13 @@ public sealed class DayEndRecordClosedDays(string exposureLogFolder) : IClosedDa
             why = $"'{path}' does not end with a complete record";
             return false;
         }
-        var parsed = ExposureLogLine.Parse(tail.LastLine);
-        if (parsed.Record is null || !parsed.HashMatches)
+        var parsed = ExposureLogLine.Parse(key, tail.LastLine);
+        if (parsed.Record is null || !parsed.MacMatches)
         {
             why = $"the last line of '{path}' is not a valid record";
             return false;
         }
-        if (parsed.Record.Kind != ExposureLogKinds.DayEnd)
+        if (parsed.Record!.Kind != ExposureLogKinds.DayEnd)
         {
             why = $"the last record of '{path}' is '{parsed.Record.Kind}' (seq {parsed.Record.Seq}), not '{ExposureLogKinds.DayEnd}'";
             return false;
