@@ -34,7 +34,12 @@ public static class InstrumentFile
         ["SettlementLagDays"] = "settlement_lag",
     };
 
-    public static IReadOnlyList<Bond> Read(TextReader reader, string fileName)
+    public static IReadOnlyList<Bond> Read(TextReader reader, string fileName) => Read(reader, fileName, null);
+
+    /// <param name="reader">The file's text.</param>
+    /// <param name="fileName">For error messages.</param>
+    /// <param name="reportingCurrency">When set, a row in another currency is refused with its line and value.</param>
+    public static IReadOnlyList<Bond> Read(TextReader reader, string fileName, string? reportingCurrency)
     {
         var bonds = new List<Bond>();
         var seen = new HashSet<string>(StringComparer.Ordinal);
@@ -44,6 +49,11 @@ public static class InstrumentFile
             if (!seen.Add(id))
             {
                 throw row.Error("id", id, "appears twice: instrument ids must be unique.");
+            }
+            var currency = row.RequiredText("currency");
+            if (reportingCurrency is not null && !string.Equals(currency, reportingCurrency, StringComparison.Ordinal))
+            {
+                throw row.Error("currency", currency, $"is not the reporting currency {reportingCurrency} (Monitor:ReportingCurrency); bonds in other currencies are refused until several currencies are supported.");
             }
             var dayCountText = row.RequiredText("day_count");
             if (!DayCounters.TryParse(dayCountText, out var dayCount))
@@ -87,4 +97,7 @@ public static class InstrumentFile
     }
 
     public static IReadOnlyList<Bond> Read(string path) => FileReading.Read(path, Read);
+
+    /// <summary>The file's bonds, every one in <paramref name="reportingCurrency"/> or the read stops at the first that is not.</summary>
+    public static IReadOnlyList<Bond> Read(string path, string reportingCurrency) => FileReading.Read(path, (reader, name) => Read(reader, name, reportingCurrency));
 }

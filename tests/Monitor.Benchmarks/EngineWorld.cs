@@ -31,7 +31,7 @@ internal sealed class EngineWorld
         {
             Id = b + "-dv01", Scope = LimitScope.Book(b), Measure = ExposureMeasure.Dv01, Lower = -1e9, Upper = 1e9,
         }).ToArray();
-        Engine = new RiskEngine(new EngineSettings { ValuationDate = SyntheticMarket.ValuationDate },
+        Engine = new RiskEngine(new EngineSettings { ValuationDate = SyntheticMarket.ValuationDate, ValuationCurveSource = ValuationCurveSource.ParYields },
             new LimitsConfiguration(new BookHierarchy("bench-firm", desks), limits));
         var bonds = market.Bonds.Select(ToBond).ToArray();
         foreach (var bond in bonds)

@@ -26,7 +26,7 @@ internal sealed class SmallBooksWorld
         var desks = BookIds.Chunk(BooksPerDesk).Select((ids, d) => (Desk: $"SD-{d:D2}", Books: (IReadOnlyList<string>)ids))
             .ToDictionary(d => d.Desk, d => d.Books, StringComparer.Ordinal);
         var hierarchy = new BookHierarchy(Firm, desks);
-        Engine = new RiskEngine(new EngineSettings { ValuationDate = SyntheticMarket.ValuationDate }, new LimitsConfiguration(hierarchy, []));
+        Engine = new RiskEngine(new EngineSettings { ValuationDate = SyntheticMarket.ValuationDate, ValuationCurveSource = ValuationCurveSource.ParYields }, new LimitsConfiguration(hierarchy, []));
         var bonds = market.Bonds.Select(EngineWorld.ToBond).ToArray();
         foreach (var bond in bonds)
         {

@@ -26,6 +26,8 @@ public class ContractSurfaceTests
           required DateTimeOffset ComputedAt
           required IReadOnlyList<CurveVersion> Curves
           required IReadOnlyDictionary<String, Double> Measures
+          Boolean Provisional
+          IReadOnlyList<String>? ProvisionalReasons
         record Monitor.Contracts.V1.CurveFitted
           required DateTimeOffset AsOf
           String? BaseCurveId
@@ -59,6 +61,14 @@ public class ContractSurfaceTests
         record Monitor.Contracts.V1.ExcludedQuote
           required String QuoteId
           required String Reason
+        record Monitor.Contracts.V1.ExposureLogCheckpointed
+          required String CheckpointMac
+          required DateTimeOffset CheckpointedAt
+          required DateOnly Day
+          required Int64 DayRecords
+          required String Mac
+          required String Reason
+          required Int64 Seq
         record Monitor.Contracts.V1.FitSummary
           required IReadOnlyList<ExcludedQuote> Excluded
           required Int32 Iterations
@@ -89,6 +99,8 @@ public class ContractSurfaceTests
           required String Measure
           required String PreviousStatus
           required DateTimeOffset ProcessedAt
+          Boolean Provisional
+          IReadOnlyList<String>? ProvisionalReasons
           required String Scope
           required String ScopeId
           required String Status

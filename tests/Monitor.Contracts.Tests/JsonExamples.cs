@@ -12,6 +12,7 @@ internal static class JsonExamples
         "InstrumentDefined", "BondQuoted", "ParYieldsPublished", "TradeBooked",
         "CurveFitted", "CurveRejected", "BookExposuresBatch", "BookExposuresUpdated", "LimitStatusChanged",
         "LimitsReloadFlagged",
+        "ExposureLogCheckpointed",
     ];
 
     /// <summary>Web defaults (camelCase, case-insensitive read), strict about unknown and null-for-non-nullable fields.</summary>

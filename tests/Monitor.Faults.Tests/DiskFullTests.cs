@@ -28,7 +28,7 @@ public sealed class DiskFullTests(ITestOutputHelper output)
         using var disk = TmpfsMount.Create(folder.Combine("log"), 256 * 1024);
         var options = new ExposureLogOptions { Folder = disk.Folder, FlushToDisk = true };
         var written = 0;
-        using (var writer = new ExposureLogWriter(options, TimeProvider.System))
+        using (var writer = new ExposureLogWriter(TestKey.Value, options, TimeProvider.System))
         {
             for (var i = 0; i < 20; i++, written++)
             {
@@ -41,7 +41,7 @@ public sealed class DiskFullTests(ITestOutputHelper output)
             for (var i = 0; i < 100 && failure is null; i++)
             {
                 var seqBefore = writer.LastSeq;
-                var hashBefore = writer.LastHash;
+                var hashBefore = writer.LastMac;
                 try
                 {
                     writer.Append(ExposureLogKinds.Snapshot, Start, Cause(written), Figures(written));
@@ -50,7 +50,7 @@ public sealed class DiskFullTests(ITestOutputHelper output)
                 catch (ExposureLogWriteException ex)
                 {
                     failure = ex;
-                    Assert.Equal((seqBefore, hashBefore), (writer.LastSeq, writer.LastHash));
+                    Assert.Equal((seqBefore, hashBefore), (writer.LastSeq, writer.LastMac));
                 }
             }
             Assert.NotNull(failure);
@@ -71,7 +71,7 @@ public sealed class DiskFullTests(ITestOutputHelper output)
             written++;
         }
 
-        var verification = ExposureLogVerifier.VerifyFolder(disk.Folder);
+        var verification = ExposureLogVerifier.VerifyFolder(TestKey.Value, disk.Folder);
         Assert.True(verification.Intact, string.Join("; ", verification.Problems));
         Assert.Equal(written, verification.Records);
     }
@@ -82,7 +82,7 @@ public sealed class DiskFullTests(ITestOutputHelper output)
         using var folder = new Monitor.Service.Tests.Support.TempFolder();
         using var disk = TmpfsMount.Create(folder.Combine("journal"), 256 * 1024);
         var written = new List<string>();
-        await using (var journal = new TradeJournal(new JournalOptions { Folder = disk.Folder }, TimeProvider.System))
+        await using (var journal = new TradeJournal(TestKey.Value, new JournalOptions { Folder = disk.Folder }, TimeProvider.System))
         {
             for (var i = 0; i < 20; i++)
             {
@@ -118,7 +118,7 @@ public sealed class DiskFullTests(ITestOutputHelper output)
         }
 
         var files = Directory.GetFiles(disk.Folder, "journal-*.jsonl");
-        var contents = JournalReplay.ReadFile(Assert.Single(files));
+        var contents = JournalReplay.ReadFile(TestKey.Value, Assert.Single(files));
         Assert.Empty(contents.Problems);
         Assert.Equal(written, contents.Trades.Select(t => t.TradeId));
         Assert.Equal(written.Count, contents.LastSeq);
@@ -130,7 +130,7 @@ public sealed class DiskFullTests(ITestOutputHelper output)
         using var folder = new Monitor.Service.Tests.Support.TempFolder();
         using var disk = TmpfsMount.Create(folder.Combine("log"), 256 * 1024);
         var gate = new StorageFaultGate(Options.Create(new StorageOptions()), TimeProvider.System, NullLogger<StorageFaultGate>.Instance);
-        using var writer = new ExposureLogWriter(new ExposureLogOptions { Folder = disk.Folder, FlushToDisk = true }, TimeProvider.System);
+        using var writer = new ExposureLogWriter(TestKey.Value, new ExposureLogOptions { Folder = disk.Folder, FlushToDisk = true }, TimeProvider.System);
         writer.Append(ExposureLogKinds.Snapshot, Start, Cause(0), Figures(0));
         disk.Fill();
 
@@ -169,7 +169,7 @@ public sealed class DiskFullTests(ITestOutputHelper output)
 
         Assert.False(gate.IsFailing);
         Assert.Equal(appended, writer.LastSeq);
-        var verification = ExposureLogVerifier.VerifyFolder(disk.Folder);
+        var verification = ExposureLogVerifier.VerifyFolder(TestKey.Value, disk.Folder);
         Assert.True(verification.Intact, string.Join("; ", verification.Problems));
         Assert.Equal(appended, verification.Records);
     }

@@ -9,7 +9,7 @@ using Xunit.Abstractions;
 namespace Monitor.Faults.Tests;
 
 /// <summary>
-/// Issue 5: "every limit status change the stream implies appears in the log", checked on the exposure log (MXL-1)
+/// Issue 5: "every limit status change the stream implies appears in the log", checked on the exposure log (exposure-log/2)
 /// of a fault run against <see cref="StreamReference"/>, the pure engine run in this process over the same inputs.
 /// </summary>
 /// <remarks>

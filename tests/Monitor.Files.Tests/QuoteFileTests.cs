@@ -28,8 +28,24 @@ public class QuoteFileTests
     }
 
     [Theory]
+    [InlineData("2026-06-01T16:30:00Z", "2026-06-01T16:30:00+00:00")]
+    [InlineData("2026-06-01T16:30Z", "2026-06-01T16:30:00+00:00")]
+    [InlineData("2026-06-01T16:30:00.125+01:00", "2026-06-01T15:30:00.125+00:00")]
+    [InlineData("2026-06-01T16:30:00", "2026-06-01T16:30:00+00:00")] // no offset: UTC (config/examples/README.md)
+    public void Iso_8601_times_are_read_with_their_offset(string written, string expected)
+    {
+        var text = "instrument_id,quote_time,bid,ask,mid,yield_pct,source\nGV-2030," + written + ",,,99,,x\n";
+        Assert.Equal(DateTimeOffset.Parse(expected, System.Globalization.CultureInfo.InvariantCulture), QuoteFile.Read(new StringReader(text), "quotes.csv")[0].QuoteTime);
+    }
+
+    [Theory]
     [InlineData("GV-2030,2026-03-02T14:30:00Z,,,abc,,x", 2, "mid", "abc")]
     [InlineData("GV-2030,yesterday,,,99,,x", 2, "quote_time", "yesterday")]
+    [InlineData("GV-2030,01/06/2026 16:30,,,99,,x", 2, "quote_time", "01/06/2026 16:30")] // day-first: once read as 6 January
+    [InlineData("GV-2030,06/01/2026 16:30,,,99,,x", 2, "quote_time", "06/01/2026 16:30")]
+    [InlineData("GV-2030,2026-06-01 16:30,,,99,,x", 2, "quote_time", "2026-06-01 16:30")]
+    [InlineData("GV-2030,1 June 2026 16:30,,,99,,x", 2, "quote_time", "1 June 2026 16:30")]
+    [InlineData("GV-2030,2026-06-01,,,99,,x", 2, "quote_time", "2026-06-01")]
     [InlineData("GV-2030,2026-03-02T14:30:00Z,,,-5,,x", 2, "mid", "-5")]
     [InlineData("GV-2030,2026-03-02T14:30:00Z,,,NaN,,x", 2, "mid", "NaN")]
     [InlineData("GV-2030,2026-03-02T14:30:00Z,,,,250,x", 2, "yield_pct", "250")]

@@ -17,6 +17,12 @@ internal sealed record DemoOutcome(
     TimeSpan RealElapsed,
     bool Interrupted)
 {
+    /// <summary>The run's throw-away record key file (in the work folder).</summary>
+    public string KeyFile { get; init; } = string.Empty;
+
+    /// <summary>The checkpoint folder beside the exposure log.</summary>
+    public string CheckpointFolder { get; init; } = string.Empty;
+
     public int Count(StatusChangeKind kind) => Changes.Count(c => c.Kind == kind);
 
     /// <summary>The story the demo promises: at least one warning, one breach and one clear, and an intact log.</summary>

@@ -6,6 +6,7 @@ using Microsoft.Extensions.Hosting;
 using Monitor.Cli.Hosting;
 using Monitor.Files;
 using Monitor.Service.Audit;
+using Monitor.Service.Storage;
 using Monitor.Service.Pipeline;
 using Serilog;
 using Serilog.Events;
@@ -30,7 +31,11 @@ internal static class DemoRunner
         var workDir = Path.GetFullPath(options.WorkDir);
         var configDir = Path.Combine(workDir, "config");
         var logFolder = Path.Combine(workDir, "exposure-log");
+        var checkpointFolder = logFolder + "-checkpoints";
+        // A throw-away record key for this run, in the work folder (never inside the log folder): the log is MACed with it.
+        var keyFile = Path.Combine(workDir, "record.key");
         Directory.CreateDirectory(configDir);
+        File.WriteAllText(keyFile, RecordKey.NewText());
         CopyConfig(configDir);
         output.WriteLine($"monitor demo: an invented trading day at the fictional Pellowmere Capital, speed {options.Speed.ToString("G", CultureInfo.InvariantCulture)}.");
         output.WriteLine($"Working folder: {workDir} (exposure log in {logFolder}, service log in monitor.log)");
@@ -52,6 +57,10 @@ internal static class DemoRunner
             ["Monitor:SnapshotInterval"] = TimeSpan.FromSeconds(3600 / clock.Rate).ToString("c", CultureInfo.InvariantCulture),
             ["Transport:Kind"] = "InMemory",
             ["ExposureLog:Folder"] = logFolder,
+            ["Record:KeyFile"] = keyFile,
+            ["Record:CheckpointFolder"] = checkpointFolder,
+            // Timers run in real time: one checkpoint per simulated hour, like the snapshots.
+            ["Record:CheckpointInterval"] = TimeSpan.FromSeconds(3600 / clock.Rate).ToString("c", CultureInfo.InvariantCulture),
         };
         var serviceLog = Path.Combine(workDir, "monitor.log");
         void Logging(LoggerConfiguration log)
@@ -111,8 +120,13 @@ internal static class DemoRunner
         await host.StopAsync(CancellationToken.None).ConfigureAwait(false);
         started.Stop();
 
+        var key = RecordKey.FromText(File.ReadAllText(keyFile), keyFile);
         var outcome = new DemoOutcome(workDir, logFolder, recorder.QuotesSent, recorder.TradesSent, recorder.Fits, recorder.Rejections().Count, recorder.Outliers,
-            recorder.Changes(), final, ExposureLogVerifier.VerifyFolder(logFolder), started.Elapsed, interrupted);
+            recorder.Changes(), final, ExposureLogVerifier.VerifyFolder(key, logFolder, checkpointFolder: checkpointFolder), started.Elapsed, interrupted)
+        {
+            KeyFile = keyFile,
+            CheckpointFolder = checkpointFolder,
+        };
         DemoSummary.Write(output, outcome);
         return outcome;
     }

@@ -29,7 +29,7 @@ internal sealed record DemoSnapshot(DateTimeOffset SimulatedTime, IReadOnlyList<
             double Get(ExposureMeasure m) => b.Exposures?.Totals.GetValueOrDefault(m) ?? double.NaN;
             return new BookRow(b.Id, b.Desk, Get(ExposureMeasure.MarketValue), Get(ExposureMeasure.Dv01), Get(ExposureMeasure.BaseLevel),
                 Get(ExposureMeasure.BaseSlope), Get(ExposureMeasure.BaseCurvature), Get(ExposureMeasure.SpreadLevel),
-                own.Length == 0 ? 0.0 : own.Max(u => u.Utilisation), EventMapper.StatusName(worst));
+                own.Length == 0 ? 0.0 : own.Max(u => u.Utilisation), EventMapper.StatusName(worst), b.ProvisionalReasons.Count > 0);
         }).ToArray();
         var curves = engine.Curves.Values.OrderBy(c => c.Key, StringComparer.Ordinal)
             .Select(c => new CurveRow(c.Label, c.Version, c.LastReport?.RmseBp, c.LastFitRejected)).ToArray();

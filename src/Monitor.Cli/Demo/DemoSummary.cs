@@ -36,7 +36,11 @@ internal static class DemoSummary
         output.WriteLine($"  {"book",-12} {"value",14} {"DV01",10} {"level",10} {"slope",10} {"curvature",10} {"spread lvl",10} {"limit use",9}");
         foreach (var b in outcome.Final.Books)
         {
-            output.WriteLine($"  {b.Book,-12} {DemoFormat.Money(b.Value),14} {DemoFormat.Money(b.Dv01),10} {DemoFormat.Money(b.BaseLevel),10} {DemoFormat.Money(b.BaseSlope),10} {DemoFormat.Money(b.BaseCurvature),10} {DemoFormat.Money(b.SpreadLevel),10} {DemoFormat.Percent(b.MaxUse),9}");
+            output.WriteLine($"  {b.Book,-12} {DemoFormat.Money(b.Value),14} {DemoFormat.Money(b.Dv01),10} {DemoFormat.Money(b.BaseLevel),10} {DemoFormat.Money(b.BaseSlope),10} {DemoFormat.Money(b.BaseCurvature),10} {DemoFormat.Money(b.SpreadLevel),10} {DemoFormat.Percent(b.MaxUse),9}{b.Mark}");
+        }
+        if (outcome.Final.Books.Any(b => b.Provisional))
+        {
+            output.WriteLine("  " + BookRow.ProvisionalLegend);
         }
         output.WriteLine("Limits at the close:");
         // Columns as wide as their longest entry, so a long spread group name does not push the figures out of line.
@@ -51,10 +55,10 @@ internal static class DemoSummary
             string.Create(inv, $"{c.Curve} v{c.Version} RMSE {(c.RmseBp is { } r ? r.ToString("F2", inv) : "-")} bp"))));
         var v = outcome.Verification;
         output.WriteLine(v.Intact
-            ? $"Exposure log {outcome.ExposureLogFolder}: intact, {v.Records} records, seq {v.FirstSeq}..{v.LastSeq}, last hash {v.LastHash}"
+            ? $"Exposure log {outcome.ExposureLogFolder}: intact, {v.Records} records, seq {v.FirstSeq}..{v.LastSeq}, anchored by {v.Checkpoints} checkpoint(s) up to seq {v.AnchoredSeq?.ToString(inv) ?? "-"}, {v.Unanchored} unanchored"
             : $"Exposure log {outcome.ExposureLogFolder}: NOT intact, {v.Problems.Count} problem(s): {string.Join("; ", v.Problems.Select(p => $"{p.Kind} at {p.File}:{p.LineNumber}"))}");
-        output.WriteLine($"Check it again: dotnet run --project src/Monitor.Cli -- verify-log \"{outcome.ExposureLogFolder}\"");
-        output.WriteLine($"Working folder (config copy, exposure log, service log monitor.log): {outcome.WorkDir}");
+        output.WriteLine($"Check it again: dotnet run --project src/Monitor.Cli -- verify-log \"{outcome.ExposureLogFolder}\" --key-file \"{outcome.KeyFile}\" --checkpoints \"{outcome.CheckpointFolder}\"");
+        output.WriteLine($"Working folder (config copy, record key record.key, exposure log and its checkpoints, service log monitor.log): {outcome.WorkDir}");
     }
 
     /// <summary>Each breach with the event time it started and the time it stepped down (null when it never did).</summary>

@@ -27,7 +27,7 @@ internal sealed class LiveView(IAnsiConsole console)
         }).ConfigureAwait(false);
     }
 
-    private static IRenderable Render(DemoSnapshot snapshot, DemoRecorder recorder)
+    internal static IRenderable Render(DemoSnapshot snapshot, DemoRecorder recorder)
     {
         var now = snapshot.SimulatedTime < DemoScenario.DayEnd ? snapshot.SimulatedTime : DemoScenario.DayEnd;
         var header = new Rows(
@@ -43,9 +43,13 @@ internal sealed class LiveView(IAnsiConsole console)
         foreach (var b in snapshot.Books)
         {
             books.AddRow(
-                new Text(b.Book), new Text(DemoFormat.Millions(b.Value)), new Text(DemoFormat.Money(b.Dv01)), new Text(DemoFormat.Money(b.BaseLevel)),
+                new Text(b.Book), new Text(DemoFormat.Millions(b.Value) + b.Mark), new Text(DemoFormat.Money(b.Dv01)), new Text(DemoFormat.Money(b.BaseLevel)),
                 new Text(DemoFormat.Money(b.BaseSlope)), new Text(DemoFormat.Money(b.BaseCurvature)), new Text(DemoFormat.Money(b.SpreadLevel)),
                 new Markup(UseMarkup(b.MaxUse, b.Status)));
+        }
+        if (snapshot.Books.Any(b => b.Provisional))
+        {
+            books.Caption(BookRow.ProvisionalLegend);
         }
 
         var limits = new Table().Border(TableBorder.Simple).Title("Limits");

@@ -43,7 +43,8 @@ internal sealed class PlainView(TextWriter output)
 
     private static string Progress(DemoSnapshot snapshot, DemoRecorder recorder)
     {
-        var books = string.Join("  ", snapshot.Books.Select(b => $"{b.Book} DV01 {DemoFormat.Money(b.Dv01)}"));
-        return $"{DemoFormat.Clock(snapshot.SimulatedTime)}  quotes {recorder.QuotesSent}, fits {recorder.Fits}, trades {recorder.TradesSent}  |  {books}";
+        var books = string.Join("  ", snapshot.Books.Select(b => $"{b.Book} DV01 {DemoFormat.Money(b.Dv01)}{b.Mark}"));
+        var legend = snapshot.Books.Any(b => b.Provisional) ? $"  ({BookRow.ProvisionalMark} provisional)" : string.Empty;
+        return $"{DemoFormat.Clock(snapshot.SimulatedTime)}  quotes {recorder.QuotesSent}, fits {recorder.Fits}, trades {recorder.TradesSent}  |  {books}{legend}";
     }
 }

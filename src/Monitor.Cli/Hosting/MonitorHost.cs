@@ -4,7 +4,10 @@ using Microsoft.Extensions.DependencyInjection;
 using Microsoft.Extensions.Hosting;
 using Microsoft.Extensions.Options;
 using Monitor.Service.Audit;
+using Monitor.Service.Consumers;
 using Monitor.Service.Hosting;
+using Monitor.Service.Journal;
+using Monitor.Service.Storage;
 using Serilog;
 
 namespace Monitor.Cli.Hosting;
@@ -26,15 +29,20 @@ internal static class MonitorHost
         builder.Configuration.AddJsonFile(Path.GetFullPath(configFile), optional: false, reloadOnChange: false);
         builder.Configuration.AddEnvironmentVariables();
         var configuration = builder.Configuration;
+        var brokerStart = new BrokerStartLogFilter();
+        builder.Services.AddSingleton(brokerStart);
         builder.Services.AddSerilog((services, logger) =>
         {
+            logger.Filter.With(brokerStart);
             if (configuration.GetSection("Serilog").Exists())
             {
-                logger.ReadFrom.Configuration(configuration).ReadFrom.Services(services);
+                logger.ReadFrom.Configuration(configuration).ReadFrom.Services(services).Filter.With(new RefusalLogEvents());
             }
             else
             {
                 logger.MinimumLevel.Information()
+                    // A refused message is one Warning line of the service's; MassTransit's own Error line with the stack is dropped.
+                    .Filter.With(new RefusalLogEvents())
                     .MinimumLevel.Override("MassTransit", Serilog.Events.LogEventLevel.Warning)
                     // HealthStatusFilePublisher logs each change of health; the check service would log every failing run.
                     .MinimumLevel.Override("Microsoft.Extensions.Diagnostics.HealthChecks", Serilog.Events.LogEventLevel.Fatal)
@@ -57,6 +65,10 @@ internal static class MonitorHost
         Read<MonitorOptions>(services, failures);
         Read<TransportOptions>(services, failures);
         Read<ExposureLogOptions>(services, failures);
+        Read<RecordOptions>(services, failures);
+        Read<StorageOptions>(services, failures);
+        Read<HealthOptions>(services, failures);
+        Read<JournalOptions>(services, failures);
         if (failures.Count > 0)
         {
             throw new AggregateException(failures);
@@ -72,6 +84,11 @@ internal static class MonitorHost
         }
         catch (OptionsValidationException ex)
         {
+            failures.Add(ex);
+        }
+        catch (InvalidOperationException ex) when (ex.Message.StartsWith("Failed to convert configuration value", StringComparison.Ordinal))
+        {
+            // A word where a bool or a number goes: the binder's message names the key; StartupFailure turns it into the fix.
             failures.Add(ex);
         }
     }
@@ -90,7 +107,7 @@ internal static class MonitorHost
         var builder = Host.CreateApplicationBuilder(new HostApplicationBuilderSettings { DisableDefaults = true });
         builder.Configuration.AddInMemoryCollection(settings);
         // A logger of this host's own (not the static Log.Logger): several hosts may share a process (tests).
-        var logger = new LoggerConfiguration();
+        var logger = new LoggerConfiguration().Filter.With(new RefusalLogEvents());
         configureLogging(logger);
         builder.Services.AddSerilog(logger.CreateLogger(), dispose: true);
         configureServices(builder.Services);

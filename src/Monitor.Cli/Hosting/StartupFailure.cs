@@ -28,6 +28,14 @@ internal static class StartupFailure
         _ => exception.InnerException is { } inner ? FolderInUse(inner) : null,
     };
 
+    /// <summary>The journal or exposure-log refusal inside <paramref name="exception"/> (the start fails closed on a bad record), or null.</summary>
+    public static Exception? RefusedRecord(Exception exception) => exception switch
+    {
+        Monitor.Service.Journal.JournalRejectedException or ExposureLogOpenException => exception,
+        AggregateException aggregate => aggregate.InnerExceptions.Select(RefusedRecord).FirstOrDefault(e => e is not null),
+        _ => exception.InnerException is { } inner ? RefusedRecord(inner) : null,
+    };
+
     private static void Collect(Exception exception, List<string> found, IConfiguration? configuration)
     {
         switch (exception)
@@ -43,6 +51,9 @@ internal static class StartupFailure
                 {
                     found.AddRange(validation.Failures);
                 }
+                break;
+            case InvalidOperationException conversion when ConfigurationValueFix.Describe(conversion, configuration) is { } problem:
+                found.Add(problem);
                 break;
             case AggregateException aggregate:
                 foreach (var inner in aggregate.InnerExceptions)

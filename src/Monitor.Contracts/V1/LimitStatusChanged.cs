@@ -45,4 +45,14 @@ public sealed record LimitStatusChanged
 
     /// <summary>When the service produced this change.</summary>
     public required DateTimeOffset ProcessedAt { get; init; }
+
+    /// <summary>
+    /// True when the status was judged on figures that were built on a stand-in (a spread group without a fitted curve: its bonds valued on the
+    /// government curve plus a flat spread from their own price); false (the default, and what a producer that does not
+    /// send the member means) when every curve was fitted.
+    /// </summary>
+    public bool Provisional { get; init; }
+
+    /// <summary>Why the figures are provisional, one reason per bond valued on a stand-in; null when not provisional.</summary>
+    public IReadOnlyList<string>? ProvisionalReasons { get; init; }
 }

@@ -78,12 +78,19 @@ public sealed class CsvRow
             : throw Error(column, value, "is not a date in the form YYYY-MM-DD.");
     }
 
+    /// <summary>
+    /// ISO 8601 extended form only, date then <c>T</c> then time, optional fraction and <c>Z</c> or an offset (UTC when
+    /// none): a culture-dependent parse read <c>01/06/2026 16:30</c> as 6 January without a word.
+    /// </summary>
+    private static readonly string[] TimestampFormats =
+        ["yyyy-MM-dd'T'HH:mmK", "yyyy-MM-dd'T'HH:mm:ssK", "yyyy-MM-dd'T'HH:mm:ss.FFFFFFFK"];
+
     public DateTimeOffset RequiredTimestamp(string column)
     {
         var value = RequiredText(column);
-        return DateTimeOffset.TryParse(value, CultureInfo.InvariantCulture, DateTimeStyles.AssumeUniversal | DateTimeStyles.AdjustToUniversal, out var time)
+        return DateTimeOffset.TryParseExact(value, TimestampFormats, CultureInfo.InvariantCulture, DateTimeStyles.AssumeUniversal | DateTimeStyles.AdjustToUniversal, out var time)
             ? time
-            : throw Error(column, value, "is not a timestamp (use ISO 8601, e.g. 2026-03-02T14:30:00Z).");
+            : throw Error(column, value, "is not an ISO 8601 timestamp (YYYY-MM-DDTHH:MM[:SS[.fff]], then Z or an offset such as +01:00; UTC if none), e.g. 2026-03-02T14:30:00Z.");
     }
 
     /// <summary>An error about one field of this row.</summary>

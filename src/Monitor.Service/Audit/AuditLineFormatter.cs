@@ -4,8 +4,8 @@ using Serilog.Formatting;
 namespace Monitor.Service.Audit;
 
 /// <summary>
-/// Writes the pre-built MXL-1 line carried by the event, then a line feed ("\n" on every platform).
-/// The line is built and hashed before it reaches Serilog, so the file holds exactly the hashed bytes.
+/// Writes the pre-built exposure-log/2 line carried by the event, then a line feed ("\n" on every platform).
+/// The line is built and MACed before it reaches Serilog, so the file holds exactly the MACed bytes.
 /// </summary>
 internal sealed class AuditLineFormatter : ITextFormatter
 {

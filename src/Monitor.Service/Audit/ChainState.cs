@@ -1,14 +1,27 @@
+using Monitor.Service.Storage;
+
 namespace Monitor.Service.Audit;
 
-/// <summary>Walks day files line by line, checking each record against the one before it.</summary>
-internal sealed class ChainState(ChainLink? before)
+/// <summary>
+/// Walks day files line by line, checking each record's MAC under the key and its link to the record before it,
+/// and notes where the records named by checkpoints are (seq, mac, file, line within the file).
+/// </summary>
+internal sealed class ChainState(RecordKey key, ChainLink? before, IReadOnlySet<long>? anchoredSeqs = null)
 {
     private readonly List<ExposureLogProblem> _problems = [];
+    private readonly Dictionary<long, (string Mac, string File, int Line)> _anchors = [];
     private ChainLink? _previous = before;
     private int _records;
     private long? _firstSeq;
     private long? _lastSeq;
-    private string? _lastHash;
+    private string? _lastMac;
+
+    /// <summary>Where the records with a checkpoint's seq were found: their mac, file name and line number.</summary>
+    public IReadOnlyDictionary<long, (string Mac, string File, int Line)> Anchors => _anchors;
+
+    public long? LastSeq => _lastSeq;
+
+    public void AddProblem(ExposureLogProblem problem) => _problems.Add(problem);
 
     public void VerifyFile(string path)
     {
@@ -47,12 +60,12 @@ internal sealed class ChainState(ChainLink? before)
     }
 
     public ExposureLogVerification Result(IReadOnlyList<string> files) =>
-        new(_problems.Count == 0, _records, _firstSeq, _lastSeq, _lastHash, files, _problems.ToList());
+        new(_problems.Count == 0, _records, _firstSeq, _lastSeq, _lastMac, files, _problems.ToList());
 
     private void VerifyLine(string name, int lineNumber, ReadOnlySpan<byte> line)
     {
         var where = $"{name} line {lineNumber}";
-        var parsed = ExposureLogLine.Parse(line);
+        var parsed = ExposureLogLine.Parse(key, line);
         if (parsed.Record is not { } record)
         {
             _problems.Add(new ExposureLogProblem(name, lineNumber, null, ExposureLogProblemKind.Unparsable, parsed.Error!));
@@ -63,15 +76,20 @@ internal sealed class ChainState(ChainLink? before)
         _records++;
         _firstSeq ??= record.Seq;
         _lastSeq = record.Seq;
-        _lastHash = record.Hash;
-        if (!parsed.HashMatches)
+        _lastMac = record.Mac;
+        if (anchoredSeqs is not null && anchoredSeqs.Contains(record.Seq))
         {
-            _problems.Add(new ExposureLogProblem(
-                name, lineNumber, record.Seq, ExposureLogProblemKind.HashMismatch,
-                $"stored hash {record.Hash}, computed {parsed.ComputedHash}: the record was changed after it was written."));
+            _anchors.TryAdd(record.Seq, (record.Mac, name, lineNumber));
         }
 
-        if (_previous is { Seq: { } previousSeq, Hash: { } previousHash } previous)
+        if (!parsed.MacMatches)
+        {
+            _problems.Add(new ExposureLogProblem(
+                name, lineNumber, record.Seq, ExposureLogProblemKind.MacMismatch,
+                $"stored mac {record.Mac}, computed {parsed.ComputedMac} under the record key: the record was written or changed by someone without the key (or the key is not the log's)."));
+        }
+
+        if (_previous is { Seq: { } previousSeq, Mac: { } previousMac } previous)
         {
             if (record.Seq != previousSeq + 1)
             {
@@ -80,14 +98,14 @@ internal sealed class ChainState(ChainLink? before)
                     $"seq {record.Seq} follows seq {previousSeq} ({previous.Where}): expected {previousSeq + 1}."));
             }
 
-            if (!string.Equals(record.PrevHash, previousHash, StringComparison.Ordinal))
+            if (!string.Equals(record.PrevMac, previousMac, StringComparison.Ordinal))
             {
                 _problems.Add(new ExposureLogProblem(
                     name, lineNumber, record.Seq, ExposureLogProblemKind.BrokenLink,
-                    $"prevHash {record.PrevHash} is not the hash {previousHash} of the record before ({previous.Where})."));
+                    $"prevMac {record.PrevMac} is not the mac {previousMac} of the record before ({previous.Where})."));
             }
         }
 
-        _previous = new ChainLink(record.Seq, record.Hash, where);
+        _previous = new ChainLink(record.Seq, record.Mac, where);
     }
 }

@@ -10,7 +10,7 @@ public sealed class ExposureLogHealthCheck(ExposureLogWriter writer) : IHealthCh
 {
     public Task<HealthCheckResult> CheckHealthAsync(HealthCheckContext context, CancellationToken cancellationToken = default)
     {
-        var data = new Dictionary<string, object> { ["lastSeq"] = writer.LastSeq, ["lastHash"] = writer.LastHash };
+        var data = new Dictionary<string, object> { ["lastSeq"] = writer.LastSeq, ["lastMac"] = writer.LastMac };
         var error = writer.LastError;
         var result = writer.IsHealthy
             ? HealthCheckResult.Healthy("exposure log writable", data)

@@ -39,6 +39,9 @@ public static class ExposureLogKinds
     /// <summary>The service stopped (intraday or not): written once, after its stop snapshots. Not a day's close.</summary>
     public const string ServiceStopped = "service-stopped";
 
+    /// <summary>A journal line or trade lost at start and let through by <c>Journal:AcceptLoss</c> (one record per loss).</summary>
+    public const string JournalLoss = "journal-loss";
+
     /// <summary>Written by the writer itself: a torn last line (crash mid-write) was cut off at start.</summary>
     public const string LogRepaired = "log-repaired";
 }

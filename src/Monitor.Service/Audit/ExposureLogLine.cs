@@ -2,39 +2,42 @@ using System.Buffers;
 using System.Globalization;
 using System.Text;
 using System.Text.Json;
+using Monitor.Service.Storage;
 
 namespace Monitor.Service.Audit;
 
 /// <summary>
-/// The MXL-1 line format (Audit/README.md): canonical bytes, hash, and reading a line back.
-/// Canonical bytes = the record object without "hash", members in the order v, seq, kind, eventTime,
-/// writtenTime, cause{id,type}, payload, prevHash, written by System.Text.Json's Utf8JsonWriter
+/// The exposure-log/2 line format (Audit/README.md): canonical bytes, MAC, and reading a line back.
+/// Canonical bytes = the record object without "mac", members in the order format, seq, kind, eventTime,
+/// writtenTime, cause{id,type}, payload, prevMac, written by System.Text.Json's Utf8JsonWriter
 /// without whitespace and with its default encoder (every non-ASCII character escaped, so lines are ASCII).
-/// The line = canonical bytes with the closing brace replaced by <c>,"hash":"&lt;hex&gt;"}</c>.
+/// mac = HMAC-SHA256 (RFC 2104) of the canonical bytes under the record key.
+/// The line = canonical bytes with the closing brace replaced by <c>,"mac":"&lt;hex&gt;"}</c>.
 /// </summary>
 internal static class ExposureLogLine
 {
-    public const int FormatVersion = 1;
+    /// <summary>The format id, first member of every line: a descriptive name of our own and its version.</summary>
+    public const string FormatId = "exposure-log/2";
 
     private const string TimeFormat = "yyyy-MM-dd'T'HH:mm:ss.fffffff'Z'";
-    private const string HashMemberStart = ",\"hash\":\"";
+    private const string MacMemberStart = ",\"mac\":\"";
 
-    // ,"hash":" + 64 hex + "}
-    private static readonly int HashSuffixLength = HashMemberStart.Length + 64 + 2;
+    // ,"mac":" + 64 hex + "}
+    private static readonly int MacSuffixLength = MacMemberStart.Length + 64 + 2;
 
-    private static readonly string[] MemberOrder = ["v", "seq", "kind", "eventTime", "writtenTime", "cause", "payload", "prevHash", "hash"];
+    private static readonly string[] MemberOrder = ["format", "seq", "kind", "eventTime", "writtenTime", "cause", "payload", "prevMac", "mac"];
 
     public static string FormatTime(DateTimeOffset time) => time.UtcDateTime.ToString(TimeFormat, CultureInfo.InvariantCulture);
 
     /// <summary>Builds the record; the payload must be a JSON object.</summary>
     public static ExposureLogRecord Build(
-        long seq, string kind, DateTimeOffset eventTime, DateTimeOffset writtenTime, ExposureLogCause cause, JsonElement payload, string prevHash)
+        RecordKey key, long seq, string kind, DateTimeOffset eventTime, DateTimeOffset writtenTime, ExposureLogCause cause, JsonElement payload, string prevMac)
     {
         var buffer = new ArrayBufferWriter<byte>(512);
         using (var writer = new Utf8JsonWriter(buffer, new JsonWriterOptions { Indented = false }))
         {
             writer.WriteStartObject();
-            writer.WriteNumber("v", FormatVersion);
+            writer.WriteString("format", FormatId);
             writer.WriteNumber("seq", seq);
             writer.WriteString("kind", kind);
             writer.WriteString("eventTime", FormatTime(eventTime));
@@ -45,25 +48,25 @@ internal static class ExposureLogLine
             writer.WriteEndObject();
             writer.WritePropertyName("payload");
             payload.WriteTo(writer);
-            writer.WriteString("prevHash", prevHash);
+            writer.WriteString("prevMac", prevMac);
             writer.WriteEndObject();
         }
 
         var canonical = buffer.WrittenSpan;
-        var hash = ExposureLogHash.Compute(canonical);
-        var line = Encoding.UTF8.GetString(canonical[..^1]) + HashMemberStart + hash + "\"}";
+        var mac = key.Mac(canonical);
+        var line = Encoding.UTF8.GetString(canonical[..^1]) + MacMemberStart + mac + "\"}";
         return new ExposureLogRecord(
-            seq, kind, eventTime.ToUniversalTime(), writtenTime.ToUniversalTime(), cause, payload.Clone(), prevHash, hash, line);
+            seq, kind, eventTime.ToUniversalTime(), writtenTime.ToUniversalTime(), cause, payload.Clone(), prevMac, mac, line);
     }
 
-    /// <summary>Reads a line (without its line feed) back into a record and checks its hash.</summary>
-    public static ParsedLine Parse(ReadOnlySpan<byte> line)
+    /// <summary>Reads a line (without its line feed) back into a record and checks its MAC under <paramref name="key"/>.</summary>
+    public static ParsedLine Parse(RecordKey key, ReadOnlySpan<byte> line)
     {
-        if (line.Length <= HashSuffixLength
-            || !line[^HashSuffixLength..].StartsWith(Encoding.ASCII.GetBytes(HashMemberStart))
+        if (line.Length <= MacSuffixLength
+            || !line[^MacSuffixLength..].StartsWith(Encoding.ASCII.GetBytes(MacMemberStart))
             || !line.EndsWith("\"}"u8))
         {
-            return Unparsable("the line does not end with the member ,\"hash\":\"<64 hex digits>\"}");
+            return Unparsable("the line does not end with the member ,\"mac\":\"<64 hex digits>\"}");
         }
 
         JsonDocument document;
@@ -81,11 +84,11 @@ internal static class ExposureLogLine
             try
             {
                 var record = ReadRecord(document.RootElement, line);
-                var canonical = new byte[line.Length - HashSuffixLength + 1];
-                line[..^HashSuffixLength].CopyTo(canonical);
+                var canonical = new byte[line.Length - MacSuffixLength + 1];
+                line[..^MacSuffixLength].CopyTo(canonical);
                 canonical[^1] = (byte)'}';
-                var computed = ExposureLogHash.Compute(canonical);
-                return new ParsedLine(record, null, string.Equals(computed, record.Hash, StringComparison.Ordinal), computed);
+                var computed = key.Mac(canonical);
+                return new ParsedLine(record, null, RecordKey.SameMac(computed, record.Mac), computed);
             }
             catch (Exception ex) when (ex is FormatException or InvalidOperationException)
             {
@@ -110,10 +113,10 @@ internal static class ExposureLogLine
             throw new FormatException($"members are [{string.Join(",", names)}], expected [{string.Join(",", MemberOrder)}]");
         }
 
-        var version = root.GetProperty("v");
-        if (version.ValueKind != JsonValueKind.Number || !version.TryGetInt32(out var v) || v != FormatVersion)
+        var format = root.GetProperty("format");
+        if (format.ValueKind != JsonValueKind.String || format.GetString() != FormatId)
         {
-            throw new FormatException($"v is {version.GetRawText()}, expected {FormatVersion}");
+            throw new FormatException($"format is {format.GetRawText()}, expected \"{FormatId}\"");
         }
 
         var seqElement = root.GetProperty("seq");
@@ -135,11 +138,11 @@ internal static class ExposureLogLine
             throw new FormatException($"payload is a JSON {payload.ValueKind}, expected an object");
         }
 
-        var prevHash = String(root, "prevHash");
-        var hash = String(root, "hash");
-        if (!ExposureLogHash.IsWellFormed(prevHash) || !ExposureLogHash.IsWellFormed(hash))
+        var prevMac = String(root, "prevMac");
+        var mac = String(root, "mac");
+        if (!ExposureLogMac.IsWellFormed(prevMac) || !ExposureLogMac.IsWellFormed(mac))
         {
-            throw new FormatException("prevHash and hash must be 64 lowercase hex digits");
+            throw new FormatException("prevMac and mac must be 64 lowercase hex digits");
         }
 
         var idElement = cause.GetProperty("id");
@@ -157,8 +160,8 @@ internal static class ExposureLogLine
             Time(root, "writtenTime"),
             new ExposureLogCause(id, String(cause, "type")),
             payload.Clone(),
-            prevHash,
-            hash,
+            prevMac,
+            mac,
             Encoding.UTF8.GetString(line));
     }
 

@@ -9,8 +9,8 @@ using Monitor.Service.Storage;
 namespace Monitor.Service.Audit;
 
 /// <summary>
-/// Appends records to the exposure log (format MXL-1, Audit/README.md): one file of JSON lines per
-/// business day, each record hash-chained to the one before, across days and restarts. Thread-safe;
+/// Appends records to the exposure log (format exposure-log/2, Audit/README.md): one file of JSON lines per
+/// business day, each record MAC-chained (HMAC-SHA256 under the record key) to the one before, across days and restarts. Thread-safe;
 /// one writer per folder (not enforced across processes). Writes go through a Serilog logger in
 /// audit mode, so a failed write throws <see cref="ExposureLogWriteException"/> and the chain does
 /// not advance: the same append can be retried once the folder is writable again.
@@ -20,6 +20,7 @@ public sealed partial class ExposureLogWriter : IDisposable
 
     private readonly Lock _gate = new();
     private readonly ExposureLogOptions _options;
+    private readonly RecordKey _key;
     private readonly TimeProvider _time;
     private readonly BusinessDayRoll _roll;
     private readonly DailyAuditFileSink _sink;
@@ -27,23 +28,25 @@ public sealed partial class ExposureLogWriter : IDisposable
     private readonly Logger _logger;
     private PendingRepair? _pendingRepair;
     private long _lastSeq;
-    private string _lastHash = ExposureLogHash.Genesis;
+    private string _lastMac = ExposureLogMac.Genesis;
     private DateOnly? _lastDay;
+    private long _dayRecords;
     private bool _healthy = true;
     private ExposureLogWriteException? _lastError;
     private bool _disposed;
 
     /// <summary>Opens the log in <see cref="ExposureLogOptions.Folder"/> and continues its chain where it stopped. Day files are named by the business date of <paramref name="roll"/> (default midnight UTC).</summary>
     /// <exception cref="ArgumentException">Invalid options (the message names the key).</exception>
-    /// <exception cref="ExposureLogOpenException">The end of the chain cannot be read or fails its hash.</exception>
-    public ExposureLogWriter(ExposureLogOptions options, TimeProvider timeProvider, BusinessDayRoll? roll = null)
-        : this(options, timeProvider, null, roll)
+    /// <exception cref="ExposureLogOpenException">The end of the chain cannot be read or fails its MAC.</exception>
+    public ExposureLogWriter(RecordKey key, ExposureLogOptions options, TimeProvider timeProvider, BusinessDayRoll? roll = null)
+        : this(key, options, timeProvider, null, roll)
     {
     }
 
     /// <summary>As the public constructor, plus a test seam: a decorator of each day file's stream (to inject write failures).</summary>
-    internal ExposureLogWriter(ExposureLogOptions options, TimeProvider timeProvider, Func<Stream, Stream>? streamDecorator, BusinessDayRoll? roll = null)
+    internal ExposureLogWriter(RecordKey key, ExposureLogOptions options, TimeProvider timeProvider, Func<Stream, Stream>? streamDecorator, BusinessDayRoll? roll = null)
     {
+        ArgumentNullException.ThrowIfNull(key);
         ArgumentNullException.ThrowIfNull(options);
         ArgumentNullException.ThrowIfNull(timeProvider);
         var errors = options.Validate();
@@ -53,6 +56,7 @@ public sealed partial class ExposureLogWriter : IDisposable
         }
 
         _options = options;
+        _key = key;
         _time = timeProvider;
         _roll = roll ?? BusinessDayRoll.UtcMidnight;
         ContinueChain();
@@ -78,10 +82,23 @@ public sealed partial class ExposureLogWriter : IDisposable
         get { lock (_gate) { return _lastSeq; } }
     }
 
-    /// <summary>hash of the last record in the log (64 zeros for an empty log).</summary>
-    public string LastHash
+    /// <summary>mac of the last record in the log (64 zeros for an empty log).</summary>
+    public string LastMac
     {
-        get { lock (_gate) { return _lastHash; } }
+        get { lock (_gate) { return _lastMac; } }
+    }
+
+    /// <summary>
+    /// The end of the chain as a checkpoint would anchor it (day, seq, mac, records in that day file), taken between two
+    /// appends; null while the log is empty. A batch holds the writer for its whole length, so this never names a
+    /// record whose batch is still being written.
+    /// </summary>
+    public (DateOnly Day, long Seq, string Mac, long DayRecords)? Anchor()
+    {
+        lock (_gate)
+        {
+            return _lastDay is { } day && _lastSeq > 0 ? (day, _lastSeq, _lastMac, _dayRecords) : null;
+        }
     }
 
     /// <summary>Appends a record whose payload is a JSON object.</summary>
@@ -154,7 +171,7 @@ public sealed partial class ExposureLogWriter : IDisposable
                 {
                     var (kind, eventTime, cause, payload) = batch[i];
                     var record = Write(kind, eventTime, cause, payload);
-                    batch.AddWritten(record.Seq, record.Hash);
+                    batch.AddWritten(record.Seq, record.Mac);
                     batch.Written = i + 1;
                 }
 
@@ -223,7 +240,7 @@ public sealed partial class ExposureLogWriter : IDisposable
             day = lastDay; // the clock stepped back: never write behind the newest file, or the chain would run backwards
         }
 
-        var record = ExposureLogLine.Build(_lastSeq + 1, kind, eventTime, written, cause, payload, _lastHash);
+        var record = ExposureLogLine.Build(_key, _lastSeq + 1, kind, eventTime, written, cause, payload, _lastMac);
         var path = ExposureLogFiles.PathOf(_options.Folder, day);
         var logEvent = new LogEvent(
             written,
@@ -246,8 +263,9 @@ public sealed partial class ExposureLogWriter : IDisposable
             throw _lastError;
         }
 
+        _dayRecords = _lastDay == day ? _dayRecords + 1 : 1;
         _lastSeq = record.Seq;
-        _lastHash = record.Hash;
+        _lastMac = record.Mac;
         _lastDay = day;
         _healthy = true;
         return record;
@@ -321,22 +339,35 @@ public sealed partial class ExposureLogWriter : IDisposable
                 continue; // empty (or only a torn line): the chain ended in an older file
             }
 
-            var parsed = ExposureLogLine.Parse(tail.LastLine);
+            var parsed = ExposureLogLine.Parse(_key, tail.LastLine);
             if (parsed.Record is null)
             {
                 throw new ExposureLogOpenException(path, $"the last complete line (at byte {tail.CompleteLength - tail.LastLine.Length - 1}) is unparsable: {parsed.Error}");
             }
 
-            if (!parsed.HashMatches)
+            if (!parsed.MacMatches)
             {
-                throw new ExposureLogOpenException(path, $"the last complete line (seq {parsed.Record.Seq}) fails its hash: stored {parsed.Record.Hash}, computed {parsed.ComputedHash}. It was changed after writing; run the verifier.");
+                throw new ExposureLogOpenException(path, $"the last complete line (seq {parsed.Record.Seq}) fails its MAC under the record key from {_key.Source}: stored {parsed.Record.Mac}, computed {parsed.ComputedMac}. Either the key is not the one the log was written with, or the line was changed after writing; run monitor verify-log with the key.");
             }
 
             _lastSeq = parsed.Record.Seq;
-            _lastHash = parsed.Record.Hash;
+            _lastMac = parsed.Record.Mac;
             _lastDay = day;
+            _dayRecords = _lastSeq - FirstSeqOf(path) + 1;
             return;
         }
+    }
+
+    /// <summary>seq of a day file's first record (its records run on by one, so the day's count is last - first + 1).</summary>
+    private long FirstSeqOf(string path)
+    {
+        using var stream = new FileStream(path, FileMode.Open, FileAccess.Read, FileShare.ReadWrite);
+        using var reader = new StreamReader(stream);
+        var line = reader.ReadLine();
+        var parsed = line is null ? default : ExposureLogLine.Parse(_key, System.Text.Encoding.UTF8.GetBytes(line));
+        return parsed.Record is { } record && parsed.MacMatches
+            ? record.Seq
+            : throw new ExposureLogOpenException(path, $"the first line is unparsable or fails its MAC under the record key from {_key.Source}; run monitor verify-log with the key.");
     }
 
     private static Exception Innermost(Exception ex)

@@ -69,11 +69,14 @@ public static class InboundMapper
         catch (ArgumentException ex)
         {
             var field = ex.ParamName is { } p && BondFieldToWire.TryGetValue(p, out var wire) ? wire : "instrumentId";
-            throw new MessageRejectedException(field, null, ex.Message);
+            // "Bond 'X': Frequency = 3 must be 0 (zero coupon), 1, 2, 4 or 12." -> "frequency = 3 must be ..."
+            var reason = RefusalText.Plain(ex, BondFieldToWire);
+            var prefix = $"Bond '{m.InstrumentId}': ";
+            throw new MessageRejectedException(field, null, reason.StartsWith(prefix, StringComparison.Ordinal) ? reason[prefix.Length..] : reason);
         }
-        catch (OverflowException ex)
+        catch (OverflowException)
         {
-            throw new MessageRejectedException("couponRate", Text(m.CouponRate), ex.Message);
+            throw new MessageRejectedException("couponRate", Text(m.CouponRate), "is too large; use a decimal rate between 0 and 1 (0.05 = 5%).");
         }
     }
 
@@ -83,6 +86,22 @@ public static class InboundMapper
         Length("instrumentId", m.InstrumentId, MaxIdLength);
         Length("quoteId", m.QuoteId, MaxIdLength);
         Length("source", m.Source, MaxTextLength);
+        Price("bidCleanPrice", m.BidCleanPrice);
+        Price("askCleanPrice", m.AskCleanPrice);
+        Price("midCleanPrice", m.MidCleanPrice);
+        if (m.Yield is { } y && (!double.IsFinite(y) || y < BondQuote.MinYield || y > BondQuote.MaxYield))
+        {
+            throw new MessageRejectedException("yield", Text(y),
+                $"is outside [{Text(BondQuote.MinYield)}, {Text(BondQuote.MaxYield)}]; yields are decimals (0.05 = 5%).");
+        }
+        if (m.BidCleanPrice is { } bid && m.AskCleanPrice is { } ask && bid > ask)
+        {
+            throw new MessageRejectedException("bidCleanPrice", Text(bid), $"is above askCleanPrice {Text(ask)}.");
+        }
+        if (m.MidCleanPrice is null && m.Yield is null && (m.BidCleanPrice is null || m.AskCleanPrice is null))
+        {
+            throw new MessageRejectedException("midCleanPrice", null, "is missing; give midCleanPrice, bidCleanPrice and askCleanPrice, or yield.");
+        }
         try
         {
             return new BondQuote(m.InstrumentId, m.QuoteTime, m.BidCleanPrice, m.AskCleanPrice, m.MidCleanPrice, m.Yield, m.Source);
@@ -97,7 +116,7 @@ public static class InboundMapper
                 "yield" => m.Yield,
                 _ => m.MidCleanPrice,
             };
-            throw new MessageRejectedException(field, field == "instrumentId" ? m.InstrumentId : value is { } v ? Text(v) : null, ex.Message);
+            throw new MessageRejectedException(field, field == "instrumentId" ? m.InstrumentId : value is { } v ? Text(v) : null, RefusalText.Plain(ex, QuoteFieldToWire));
         }
     }
 
@@ -162,6 +181,14 @@ public static class InboundMapper
         if (value is not null && value.Length > max)
         {
             throw new MessageRejectedException(field, value[..Math.Min(40, value.Length)] + "...", $"is {value.Length} characters long; at most {max} are accepted.");
+        }
+    }
+
+    private static void Price(string field, double? price)
+    {
+        if (price is { } p && (!double.IsFinite(p) || p <= 0 || p > BondQuote.MaxPrice))
+        {
+            throw new MessageRejectedException(field, Text(p), $"is outside (0, {Text(BondQuote.MaxPrice)}] per 100 face.");
         }
     }
 

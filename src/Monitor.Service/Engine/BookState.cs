@@ -47,6 +47,9 @@ public sealed class BookState
 
     public DateTimeOffset? UpdatedAt { get; set; }
 
+    /// <summary>Why the last figures are provisional (<see cref="BookUpdate.ProvisionalReasons"/>); empty when they are not.</summary>
+    public IReadOnlyList<string> ProvisionalReasons => _last?.ProvisionalReasons ?? [];
+
     /// <summary>A revaluation's figures: the update carries the measures and the moments behind <see cref="Risk"/>.</summary>
     internal void SetFigures(BookUpdate update, DateTimeOffset now)
     {

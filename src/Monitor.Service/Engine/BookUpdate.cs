@@ -32,6 +32,15 @@ public sealed record BookUpdate
 
     public BookExposures Exposures { get; init; }
 
+    /// <summary>
+    /// Why the figures are provisional (a spread group without a fitted curve, valued on the government curve plus a
+    /// flat spread from the bond's own price), one reason per bond so valued; empty when every curve was fitted.
+    /// </summary>
+    public IReadOnlyList<string> ProvisionalReasons { get; init; } = [];
+
+    /// <summary>Whether any figure was built on a stand-in spread (<see cref="ProvisionalReasons"/>).</summary>
+    public bool Provisional => ProvisionalReasons.Count > 0;
+
     public BookRisk Risk
     {
         get => _risk ??= _moments.BuildRisk();
@@ -45,7 +54,8 @@ public sealed record BookUpdate
     // As the positional record compared: book, figures and exposures (not the lazily filled cache behind Risk).
     public bool Equals(BookUpdate? other) =>
         other is not null && (ReferenceEquals(this, other)
-            || (Book == other.Book && EqualityComparer<BookExposures>.Default.Equals(Exposures, other.Exposures) && EqualityComparer<BookRisk>.Default.Equals(Risk, other.Risk)));
+            || (Book == other.Book && EqualityComparer<BookExposures>.Default.Equals(Exposures, other.Exposures) && EqualityComparer<BookRisk>.Default.Equals(Risk, other.Risk)
+                && ProvisionalReasons.SequenceEqual(other.ProvisionalReasons)));
 
     public override int GetHashCode() => HashCode.Combine(Book, Exposures, Risk);
 

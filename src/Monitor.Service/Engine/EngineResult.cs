@@ -20,6 +20,6 @@ public sealed class EngineResult
     /// <summary>Milliseconds spent recomputing books.</summary>
     public double ExposureMilliseconds { get; set; }
 
-    /// <summary>Books that could not be valued because a curve they need has no good fit yet.</summary>
+    /// <summary>Books holding a spread group without a good fit yet: valued on stand-in spreads, their figures provisional.</summary>
     public List<string> BooksAwaitingCurves { get; } = [];
 }

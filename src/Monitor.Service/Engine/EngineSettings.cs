@@ -20,6 +20,18 @@ public sealed record EngineSettings
 
     public FitQualityGate SpreadGate { get; init; } = new(MaxRmseBp: 15, MaxAbsErrorBp: 60, MinInstruments: 4);
 
+    /// <summary>The currency of every figure; a bond in another is refused (null: no check, for tests of the analytics).</summary>
+    public string? ReportingCurrency { get; init; }
+
+    /// <summary>
+    /// How far ahead of the business clock a quote may be stamped (clock skew between the feed and us); a quote stamped
+    /// further ahead is refused. Default 5 s.
+    /// </summary>
+    public TimeSpan QuoteClockTolerance { get; init; } = TimeSpan.FromSeconds(5);
+
+    /// <summary>What fits the valuation government curve; the other source fits a reference curve (<see cref="ValuationCurveSource"/>).</summary>
+    public ValuationCurveSource ValuationCurveSource { get; init; } = ValuationCurveSource.BondQuotes;
+
     /// <summary>A quote older than this when a curve is fitted is left out as stale.</summary>
     public TimeSpan StaleAfter { get; init; } = TimeSpan.FromHours(4);
 }

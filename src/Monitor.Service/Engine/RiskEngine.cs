@@ -33,9 +33,16 @@ public sealed class RiskEngine
     private readonly ParYieldCurveFitter _parYieldFitter = new();
     private readonly Dictionary<string, SpreadCurveFitter> _spreadFitters = new(StringComparer.Ordinal);
     private readonly TradeRegister _trades = new();
+    // Last published version per curve key before this start (LoggedCurveVersions): versions continue from there.
+    private readonly Dictionary<string, int> _versionFloors = new(StringComparer.Ordinal);
+    // The last traded clean price per instrument: the stand-in spread's price when a bond has no quote.
+    private readonly Dictionary<string, (double CleanPrice, DateTimeOffset Time)> _lastTradePrices = new(StringComparer.Ordinal);
 
     /// <summary>Days either side of the valuation date a trade time may fall (common practice, no source: late bookings within a week).</summary>
     private const int TradeDayWindow = 7;
+
+    /// <summary>How far ahead of the clock a par-yield set may be stamped (common practice, no source).</summary>
+    private static readonly TimeSpan EventClockTolerance = TimeSpan.FromMinutes(5);
     private readonly LimitSet _limits;
 
     public RiskEngine(EngineSettings settings, LimitsConfiguration limits)
@@ -44,6 +51,7 @@ public sealed class RiskEngine
         ArgumentNullException.ThrowIfNull(limits);
         _limits = limits.CreateLimitSet();
         _curves[CurveKey.Government] = new CurveState(CurveKey.Government);
+        Reference = new CurveState(settings.ValuationCurveSource == ValuationCurveSource.BondQuotes ? CurveKeyLabel.GovernmentPar : CurveKeyLabel.GovernmentBonds);
         foreach (var book in limits.Hierarchy.Books)
         {
             _books[book] = new BookState(book, limits.Hierarchy.DeskOf(book));
@@ -57,6 +65,12 @@ public sealed class RiskEngine
     public IReadOnlyDictionary<string, Bond> Instruments => _instruments;
 
     public IReadOnlyDictionary<string, CurveState> Curves => _curves;
+
+    /// <summary>
+    /// The government curve fitted from the source that does not value the books (<see cref="EngineSettings.ValuationCurveSource"/>):
+    /// published under its own id, never in <see cref="Curves"/> and never used for figures.
+    /// </summary>
+    public CurveState Reference { get; }
 
     public IReadOnlyDictionary<string, BookState> Books => _books;
 
@@ -85,7 +99,7 @@ public sealed class RiskEngine
         _instruments[bond.Id] = bond;
         if (!_curves.ContainsKey(key))
         {
-            _curves[key] = new CurveState(key);
+            _curves[key] = new CurveState(key) { Version = _versionFloors.GetValueOrDefault(key) };
         }
     }
 
@@ -96,11 +110,35 @@ public sealed class RiskEngine
     public Bond? CheckDefinition(Bond bond)
     {
         ArgumentNullException.ThrowIfNull(bond);
+        CheckCurrency(bond);
         if (_instruments.TryGetValue(bond.Id, out var existing) && !SameTerms(existing, bond) && IsHeld(bond.Id))
         {
             throw new MessageRejectedException("instrumentId", bond.Id, "is held in a book and its terms differ from the ones in use; amend reference data after the positions are closed.");
         }
         return existing;
+    }
+
+    /// <summary>
+    /// Continues every curve's versions from <paramref name="lastVersions"/> (curve label -&gt; last published version,
+    /// from durable state), so that versions only grow across restarts. Call before the first fit. Returns the engine.
+    /// </summary>
+    public RiskEngine ContinuingCurveVersions(IReadOnlyDictionary<string, int> lastVersions)
+    {
+        ArgumentNullException.ThrowIfNull(lastVersions);
+        foreach (var (label, version) in lastVersions)
+        {
+            var key = CurveKeyLabel.KeyOf(label);
+            if (key == Reference.Key && Reference.Current is null)
+            {
+                Reference.Version = Math.Max(Reference.Version, version);
+            }
+            _versionFloors[key] = Math.Max(version, _versionFloors.GetValueOrDefault(key));
+            if (_curves.TryGetValue(key, out var curve) && curve.Current is null)
+            {
+                curve.Version = Math.Max(curve.Version, version);
+            }
+        }
+        return this;
     }
 
     /// <summary>Keeps the quote as the newest for its bond and marks its curve for a refit. Returns the curve key.</summary>
@@ -114,7 +152,9 @@ public sealed class RiskEngine
     {
         ArgumentNullException.ThrowIfNull(quote);
         var bond = RequireInstrument(quote.InstrumentId, "instrumentId");
-        CheckEventTime("quoteTime", quote.QuoteTime, now);
+        CheckCurrency(bond);
+        // A quote from the future would outrank every real quote of its bond until the clock passed its stamp.
+        CheckEventTime("quoteTime", quote.QuoteTime, now, Settings.QuoteClockTolerance);
         return Price(bond, quote);
     }
 
@@ -127,7 +167,8 @@ public sealed class RiskEngine
         {
             priced = Price(bond, priced.Quote); // the bond was redefined after the quote was priced: price on today's terms
         }
-        var curve = _curves[CurveKey.Normalize(bond.SpreadGroup)];
+        var key = CurveKey.Normalize(bond.SpreadGroup);
+        var curve = CurveKey.IsGovernment(key) && Settings.ValuationCurveSource == ValuationCurveSource.ParYields ? Reference : _curves[key];
         if (curve.LatestQuotes.TryGetValue(bond.Id, out var previous) && previous.Quote.QuoteTime > priced.Quote.QuoteTime)
         {
             return curve.Key; // an older quote arriving late never replaces a newer one
@@ -138,7 +179,7 @@ public sealed class RiskEngine
     }
 
     /// <summary>Curves with quotes waiting for a refit.</summary>
-    public IReadOnlyList<string> DirtyCurves() => _curves.Values.Where(c => c.Dirty).Select(c => c.Key).ToArray();
+    public IReadOnlyList<string> DirtyCurves() => _curves.Values.Append(Reference).Where(c => c.Dirty).Select(c => c.Key).ToArray();
 
     /// <summary>
     /// Refits every curve with new quotes (the government curve first: spread curves sit on it, so a new
@@ -148,11 +189,14 @@ public sealed class RiskEngine
     public EngineResult RefitDirtyCurves(DateTimeOffset now)
     {
         var result = new EngineResult();
+        if (Reference.Dirty && FitGovernment(Reference, now) is { } referenceOutcome)
+        {
+            result.Curves.Add(referenceOutcome); // the reference curve: no figures move
+        }
         var government = _curves[CurveKey.Government];
         var governmentChanged = false;
-        if (government.Dirty)
+        if (government.Dirty && FitGovernment(government, now) is { } outcome)
         {
-            var outcome = FitGovernment(government, now);
             result.Curves.Add(outcome);
             governmentChanged = outcome.Accepted;
         }
@@ -161,8 +205,9 @@ public sealed class RiskEngine
     }
 
     /// <summary>
-    /// Fits the government curve from par yields at tenors (decimals, bond-equivalent semiannual) through the
-    /// same quality gate as a bond fit; an accepted curve refits the spread curves on it and revalues every book.
+    /// Fits a government curve from par yields at tenors (decimals, bond-equivalent semiannual) through the same quality
+    /// gate as a bond fit: the reference curve <c>government-par</c> (no figures move) unless par yields are the
+    /// valuation source, when an accepted curve refits the spread curves on it and revalues every book.
     /// Only the government curve has par yields (<paramref name="curveId"/> "government").
     /// </summary>
     public EngineResult ApplyParYields(string curveId, DateTimeOffset asOf, IReadOnlyList<(string Tenor, double ParYield)> points, DateTimeOffset now)
@@ -172,7 +217,7 @@ public sealed class RiskEngine
         {
             throw new MessageRejectedException("curveId", curveId, $"has no par-yield fit; only the '{CurveKeyLabel.Government}' curve is fitted from par yields.");
         }
-        CheckEventTime("asOf", asOf, now);
+        CheckEventTime("asOf", asOf, now, EventClockTolerance);
         if (points.Count == 0)
         {
             throw new MessageRejectedException("points", "[]", "is empty; give par yields at tenors such as 1Y, 2Y, 5Y, 10Y.");
@@ -193,8 +238,14 @@ public sealed class RiskEngine
             }
             fitPoints.Add(new Analytics.Fitting.ParYieldPoint(years, parYield));
         }
-        var government = _curves[CurveKey.Government];
         var result = new EngineResult();
+        if (Settings.ValuationCurveSource == ValuationCurveSource.BondQuotes)
+        {
+            // Par yields fit their own reference curve: fitted into the valuation curve too, it flipped between two fits.
+            result.Curves.Add(Conclude(Reference, () => _parYieldFitter.Fit(fitPoints, Settings.BaseFit, Reference.Current?.Parameters), Settings.BaseGate, now, fitPoints.Count));
+            return result;
+        }
+        var government = _curves[CurveKey.Government];
         var outcome = Conclude(government, () => _parYieldFitter.Fit(fitPoints, Settings.BaseFit, government.Current?.Parameters), Settings.BaseGate, now, fitPoints.Count);
         result.Curves.Add(outcome);
         RefitSpreadsAndRevalue(result, outcome.Accepted, now);
@@ -215,13 +266,12 @@ public sealed class RiskEngine
         }
         foreach (var curve in _curves.Values.Where(c => !CurveKey.IsGovernment(c.Key)).OrderBy(c => c.Key, StringComparer.Ordinal))
         {
-            if (curve.Dirty || (governmentChanged && curve.LatestQuotes.Count > 0))
+            if ((curve.Dirty || (governmentChanged && curve.LatestQuotes.Count > 0)) && FitSpread(curve, government.Curve, now) is { } outcome)
             {
-                var outcome = FitSpread(curve, government.Curve, now);
                 result.Curves.Add(outcome);
-                if (outcome.Accepted)
+                if (outcome.Accepted || curve.Curve is null)
                 {
-                    changed.Add(curve.Key);
+                    changed.Add(curve.Key); // still no curve: its books' stand-in spreads move with the new quotes
                 }
             }
         }
@@ -250,6 +300,7 @@ public sealed class RiskEngine
         ArgumentNullException.ThrowIfNull(trade);
         RequireBook(trade.Book, "book");
         var bond = RequireInstrument(trade.InstrumentId, "instrumentId");
+        CheckCurrency(bond);
         CheckFace(trade.FaceAmount);
         if (trade.Action != TradeAction.Cancel && bond.MaturityDate <= ValuationDate)
         {
@@ -297,6 +348,11 @@ public sealed class RiskEngine
             }
         }
         _trades.Record(trade);
+        if (trade.Action != TradeAction.Cancel
+            && (!_lastTradePrices.TryGetValue(trade.InstrumentId, out var last) || last.Time <= trade.TradeTime))
+        {
+            _lastTradePrices[trade.InstrumentId] = (trade.CleanPrice, trade.TradeTime);
+        }
         if (_curves[CurveKey.Government].Curve is not null)
         {
             Revalue(touched, now, result);
@@ -342,20 +398,44 @@ public sealed class RiskEngine
     public string CurvesInUse() =>
         string.Join(", ", _curves.Values.Where(c => c.Curve is not null).OrderBy(c => c.Key, StringComparer.Ordinal).Select(c => $"{c.Label} v{c.Version}"));
 
-    private CurveFitOutcome FitGovernment(CurveState curve, DateTimeOffset now)
+    /// <summary>Null when the curve has never been fitted and has fewer usable quotes than its gate's minimum: no fit is tried yet.</summary>
+    private CurveFitOutcome? FitGovernment(CurveState curve, DateTimeOffset now)
     {
         var (instruments, excluded) = FitInputs(curve, now);
+        if (TooFewForFirstFit(curve, instruments.Count, Settings.BaseGate))
+        {
+            return null;
+        }
         return Conclude(curve, () => _baseFitter.Fit(instruments, Settings.BaseFit, curve.Current?.Parameters, excluded), Settings.BaseGate, now, instruments.Count + excluded.Count);
     }
 
-    private CurveFitOutcome FitSpread(CurveState curve, IZeroCurve baseCurve, DateTimeOffset now)
+    private CurveFitOutcome? FitSpread(CurveState curve, IZeroCurve baseCurve, DateTimeOffset now)
     {
         if (!_spreadFitters.TryGetValue(curve.Key, out var fitter))
         {
             _spreadFitters[curve.Key] = fitter = new SpreadCurveFitter();
         }
         var (instruments, excluded) = FitInputs(curve, now);
+        if (TooFewForFirstFit(curve, instruments.Count, Settings.SpreadGate))
+        {
+            return null;
+        }
         return Conclude(curve, () => fitter.Fit(baseCurve, instruments, Settings.SpreadFit, curve.Current?.Parameters, excluded), Settings.SpreadGate, now, instruments.Count + excluded.Count);
+    }
+
+    /// <summary>
+    /// A curve without a fit waits, quietly, until it has the gate's minimum of usable quotes: a fit on fewer would only be
+    /// refused (a CurveRejected event and a warning for the first quote of the day). A fitted curve that falls below the
+    /// minimum is refitted and refused with the reason: that is news.
+    /// </summary>
+    private static bool TooFewForFirstFit(CurveState curve, int usable, FitQualityGate gate)
+    {
+        if (curve.Current is null && usable < gate.MinInstruments)
+        {
+            curve.Dirty = false; // the next quote marks it again
+            return true;
+        }
+        return false;
     }
 
     /// <summary>
@@ -374,20 +454,23 @@ public sealed class RiskEngine
         {
             curve.LastFitRejected = true;
             var refused = new FitQualityVerdict(false, ["no fit: " + ex.Message]);
-            return new CurveFitOutcome(curve.Key, false, null, refused, curve.Version, curve.FittedAt, offered);
+            return new CurveFitOutcome(curve.Key, false, null, refused, KeptVersion(curve), curve.FittedAt, offered);
         }
         curve.LastReport = result.Report;
         var verdict = gate.Evaluate(result.Report);
         curve.LastFitRejected = !verdict.Passed;
         if (!verdict.Passed)
         {
-            return new CurveFitOutcome(curve.Key, false, result, verdict, curve.Version, curve.FittedAt, offered);
+            return new CurveFitOutcome(curve.Key, false, result, verdict, KeptVersion(curve), curve.FittedAt, offered);
         }
         curve.Current = result;
         curve.Version++;
         curve.FittedAt = now;
         return new CurveFitOutcome(curve.Key, true, result, verdict, curve.Version, null, offered);
     }
+
+    /// <summary>The version of the curve a rejection keeps: 0 when none was fitted since the start (a continued version is not a curve).</summary>
+    private static int KeptVersion(CurveState curve) => curve.Current is null ? 0 : curve.Version;
 
     private (List<FitInstrument> Instruments, List<FitExclusion> Excluded) FitInputs(CurveState curve, DateTimeOffset now)
     {
@@ -411,19 +494,22 @@ public sealed class RiskEngine
     /// Revalues <paramref name="books"/> on the current curves: per curve key they hold, the instrument rows (built once
     /// per curve change, <see cref="CurveKeyInstruments"/>) times each book's quantities, all these books in one pass;
     /// a book's total is the sum of its keys' exposures, as for its cash flows merged by date. A book holding a spread
-    /// group without a fitted curve waits (<see cref="EngineResult.BooksAwaitingCurves"/>).
+    /// group without a fitted curve is valued position by position with stand-in spreads and its figures are provisional
+    /// (<see cref="ValueProvisionally"/>, <see cref="EngineResult.BooksAwaitingCurves"/>): never left out of its desk and firm.
     /// </summary>
     private void Revalue(IEnumerable<BookState> books, DateTimeOffset now, EngineResult result)
     {
         var clock = Stopwatch.StartNew();
         var government = _curves[CurveKey.Government].Curve!;
         var priced = new List<BookState>(books is ICollection<BookState> all ? all.Count : 0);
+        List<BookState>? provisional = null;
         Func<string, bool> awaitsCurve = k => !CurveKey.IsGovernment(k) && _curves[k].Curve is null; // one delegate, not one per book
         foreach (var book in books)
         {
             if (book.HoldsAny(awaitsCurve))
             {
                 result.BooksAwaitingCurves.Add(book.Id);
+                (provisional ??= []).Add(book);
             }
             else
             {
@@ -473,8 +559,8 @@ public sealed class RiskEngine
             }
         }
         var figures = new BookFiguresBuilder(government.FactorCount, passes.ConvertAll(p => p.Key), matrices, priced.Count);
-        var limitUpdates = new (string BookId, BookExposures Exposures)[priced.Count];
-        result.Books.EnsureCapacity(result.Books.Count + priced.Count);
+        var limitUpdates = new (string BookId, BookExposures Exposures)[priced.Count + (provisional?.Count ?? 0)];
+        result.Books.EnsureCapacity(result.Books.Count + limitUpdates.Length);
         for (var i = 0; i < priced.Count; i++)
         {
             var book = priced[i];
@@ -484,10 +570,78 @@ public sealed class RiskEngine
             result.Books.Add(update);
             limitUpdates[i] = (book.Id, exposures);
         }
+        for (var i = 0; provisional is not null && i < provisional.Count; i++)
+        {
+            var update = ValueProvisionally(provisional[i], government);
+            provisional[i].SetFigures(update, now);
+            result.Books.Add(update);
+            limitUpdates[priced.Count + i] = (update.Book, update.Exposures);
+        }
         // All books first, then each desk and the firm once on the new figures (not once per book).
         result.StatusChanges.AddRange(_limits.UpdateBooks(limitUpdates, now));
         result.ExposureMilliseconds += clock.Elapsed.TotalMilliseconds;
         result.CurvesUsed = CurvesInUse();
+    }
+
+    /// <summary>
+    /// A book holding a spread group without a fitted curve, valued position by position (<see cref="PositionRisk"/>):
+    /// bonds of a fitted curve on it, the others on the government curve plus a flat spread from their own price
+    /// (<see cref="StandInSpread"/>), one reason per such bond. Off the fast path: only while a curve is missing.
+    /// </summary>
+    private BookUpdate ValueProvisionally(BookState book, IFactorCurve government)
+    {
+        var byKey = new SortedDictionary<string, FactorExposures>(StringComparer.Ordinal);
+        var reasons = new List<string>();
+        foreach (var (id, face) in book.Positions.OrderBy(p => p.Key, StringComparer.Ordinal))
+        {
+            var registered = _registered[id];
+            if (registered.FlowCount == 0)
+            {
+                continue; // matured: nothing left to value, as on the fast path
+            }
+            var key = registered.CurveKey;
+            var spread = CurveKey.IsGovernment(key) ? null : _curves[key].Curve;
+            if (!CurveKey.IsGovernment(key) && spread is null)
+            {
+                var bond = _instruments[id];
+                (spread, var reason) = StandInSpread.For(bond, ValuationDate, government,
+                    _curves[key].LatestQuotes.GetValueOrDefault(id), _lastTradePrices.TryGetValue(id, out var last) ? last : null);
+                reasons.Add(reason);
+            }
+            var exposures = PositionRisk.Compute(_byCurveKey[key].Table.CashFlows(registered.Number), ValuationDate, government, spread, face / 100.0);
+            byKey[key] = byKey.TryGetValue(key, out var sum) ? sum.Plus(exposures) : exposures;
+        }
+        var total = FactorExposures.Zero(government.FactorCount, 0);
+        foreach (var exposures in byKey.Values)
+        {
+            total = total.Plus(exposures);
+        }
+        var risk = new BookRisk(total, new Dictionary<string, FactorExposures>(byKey, StringComparer.Ordinal));
+        return new BookUpdate(book.Id, ExposureMapping.ToBookExposures(risk), risk) { ProvisionalReasons = reasons };
+    }
+
+    /// <summary>
+    /// Why the figures a limit of <paramref name="scope"/> is judged on are provisional: the reasons of every book in the
+    /// scope whose last figures are (prefixed with the book for a desk or the firm); empty when none is.
+    /// </summary>
+    public IReadOnlyList<string> ProvisionalReasons(LimitScope scope)
+    {
+        List<string>? reasons = null;
+        foreach (var book in _books.Values.OrderBy(b => b.Id, StringComparer.Ordinal))
+        {
+            if (book.ProvisionalReasons.Count == 0
+                || (scope.Level == LimitScopeLevel.Desk && book.Desk != scope.Id)
+                || (scope.Level == LimitScopeLevel.Book && book.Id != scope.Id))
+            {
+                continue;
+            }
+            reasons ??= [];
+            foreach (var reason in book.ProvisionalReasons)
+            {
+                reasons.Add(scope.Level == LimitScopeLevel.Book ? reason : $"book {book.Id}: {reason}");
+            }
+        }
+        return reasons ?? (IReadOnlyList<string>)[];
     }
 
     /// <summary>How many times instrument rows were built, over all curve keys (tests check that a trade builds none).</summary>
@@ -526,21 +680,33 @@ public sealed class RiskEngine
         }
         catch (ArgumentException ex)
         {
-            throw new MessageRejectedException(quote.CleanMid is null ? "yield" : "midCleanPrice", (quote.CleanMid ?? quote.Yield)?.ToString("G", CultureInfo.InvariantCulture), ex.Message);
+            throw new MessageRejectedException(quote.CleanMid is null ? "yield" : "midCleanPrice", (quote.CleanMid ?? quote.Yield)?.ToString("G", CultureInfo.InvariantCulture),
+                RefusalText.Plain(ex, new Dictionary<string, string>(StringComparer.Ordinal)));
         }
         return new PricedQuote(quote, bond, settlement, priced.CleanPrice, priced.DirtyPrice, priced.Yield, priced.ModifiedDuration, priced.Times, priced.Amounts);
     }
 
-    /// <summary>An event time more than 5 minutes ahead of the clock or more than 7 days behind it is refused.</summary>
-    private static void CheckEventTime(string field, DateTimeOffset time, DateTimeOffset now)
+    /// <summary>An event time more than <paramref name="ahead"/> ahead of the clock or more than 7 days behind it is refused.</summary>
+    private static void CheckEventTime(string field, DateTimeOffset time, DateTimeOffset now, TimeSpan ahead)
     {
-        if (time > now + TimeSpan.FromMinutes(5))
+        if (time > now + ahead)
         {
-            throw new MessageRejectedException(field, Iso(time), $"is in the future (now {Iso(now)}); check the source's clock.");
+            throw new MessageRejectedException(field, Iso(time),
+                $"is in the future (now {Iso(now)}, {ahead.TotalSeconds.ToString(CultureInfo.InvariantCulture)} s allowed ahead); check the source's clock.");
         }
         if (time < now - TimeSpan.FromDays(7))
         {
             throw new MessageRejectedException(field, Iso(time), $"is more than 7 days old (now {Iso(now)}).");
+        }
+    }
+
+    /// <summary>One reporting currency until several are supported: a bond in another would be priced on the wrong curve and summed into the wrong totals.</summary>
+    private void CheckCurrency(Bond bond)
+    {
+        if (Settings.ReportingCurrency is { } reporting && !string.Equals(bond.Currency, reporting, StringComparison.Ordinal))
+        {
+            throw new MessageRejectedException("currency", bond.Currency,
+                $"of instrument {bond.Id} is not the reporting currency {reporting} (Monitor:ReportingCurrency); bonds in other currencies are refused until several currencies are supported.");
         }
     }
 

@@ -35,7 +35,7 @@ public sealed class TradeRegister
                 return (TradeOutcome.Duplicate, current);
             }
             throw new MessageRejectedException("version", trade.Version.ToString(CultureInfo.InvariantCulture),
-                $"conflicts: trade {trade.TradeId} version {trade.Version} was applied with a different payload. Applied: {current}. Received: {trade}.");
+                $"conflicts: trade {trade.TradeId} version {trade.Version} was applied with other values ({Differences(current, trade)}); send the change as the next version.");
         }
         if (trade.Version < current.Version)
         {
@@ -48,7 +48,7 @@ public sealed class TradeRegister
         }
         if (current.Action == TradeAction.Cancel)
         {
-            throw new MessageRejectedException("action", trade.Action.ToString(),
+            throw new MessageRejectedException("action", trade.Action.ToString().ToLowerInvariant(),
                 $"cannot follow the cancellation of trade {trade.TradeId} at version {current.Version}.");
         }
         if (trade.Action == TradeAction.New)
@@ -59,4 +59,29 @@ public sealed class TradeRegister
     }
 
     public void Record(TradeInput trade) => _latest[trade.TradeId] = trade;
+
+    /// <summary>The wire fields that differ, "book: applied RATES-CORE, received CREDIT-IG", times in ISO 8601.</summary>
+    private static string Differences(TradeInput applied, TradeInput received)
+    {
+        var differences = new List<string>();
+        Compare("action", applied.Action.ToString().ToLowerInvariant(), received.Action.ToString().ToLowerInvariant());
+        Compare("book", applied.Book, received.Book);
+        Compare("instrumentId", applied.InstrumentId, received.InstrumentId);
+        Compare("faceAmount", Number(applied.FaceAmount), Number(received.FaceAmount));
+        Compare("cleanPrice", Number(applied.CleanPrice), Number(received.CleanPrice));
+        Compare("tradeTime", Time(applied.TradeTime), Time(received.TradeTime));
+        return differences.Count == 0 ? "no field differs in its text" : string.Join("; ", differences);
+
+        void Compare(string field, string a, string b)
+        {
+            if (!string.Equals(a, b, StringComparison.Ordinal))
+            {
+                differences.Add($"{field}: applied {a}, received {b}");
+            }
+        }
+    }
+
+    private static string Number(double value) => value.ToString("G17", CultureInfo.InvariantCulture);
+
+    private static string Time(DateTimeOffset value) => value.ToString("yyyy-MM-dd'T'HH:mm:ss.FFFFFFFzzz", CultureInfo.InvariantCulture);
 }

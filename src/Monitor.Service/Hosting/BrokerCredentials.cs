@@ -6,17 +6,18 @@ public sealed record BrokerCredentials(string User, string Password)
     /// <summary>Reads the credentials, or returns the problem in words naming the key and the fix.</summary>
     public static (BrokerCredentials? Credentials, string? Problem) Resolve(BrokerOptions options, Func<string, string?> environment)
     {
+        var (credentials, problems) = ResolveAll(options, environment);
+        return (credentials, problems.Count == 0 ? null : string.Join(" ", problems));
+    }
+
+    /// <summary>Reads the credentials, or returns every problem (user and password both), each naming the key and the fix.</summary>
+    public static (BrokerCredentials? Credentials, IReadOnlyList<string> Problems) ResolveAll(BrokerOptions options, Func<string, string?> environment)
+    {
+        ArgumentNullException.ThrowIfNull(options);
         var (user, userProblem) = Read(options.UserFile, "Transport:Broker:UserFile", BrokerOptions.UserVariable, environment);
-        if (userProblem is not null)
-        {
-            return (null, userProblem);
-        }
         var (password, passwordProblem) = Read(options.PasswordFile, "Transport:Broker:PasswordFile", BrokerOptions.PasswordVariable, environment);
-        if (passwordProblem is not null)
-        {
-            return (null, passwordProblem);
-        }
-        return (new BrokerCredentials(user!, password!), null);
+        var problems = new[] { userProblem, passwordProblem }.OfType<string>().ToArray();
+        return problems.Length == 0 ? (new BrokerCredentials(user!, password!), problems) : (null, problems);
     }
 
     /// <summary>The password never appears in logs or exceptions.</summary>

@@ -6,7 +6,7 @@ namespace Monitor.Service.Hosting;
 /// <summary>
 /// Configuration section <c>Monitor:BusinessDay</c>: when the business day rolls. The journal and the exposure log
 /// name their day files by business date, a restart replays every journal day since the start-of-day state, and the
-/// roll passing while the service runs closes the day (<c>day-close</c> record).
+/// roll passing while the service runs closes the day (<c>close-snapshot</c> records and a <c>day-closed</c> record).
 /// </summary>
 public sealed class BusinessDayOptions
 {

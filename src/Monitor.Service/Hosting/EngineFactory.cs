@@ -24,7 +24,7 @@ public static class EngineFactory
         IReadOnlyList<Analytics.Instruments.Bond> bonds;
         try
         {
-            bonds = InstrumentFile.Read(options.InstrumentsFile);
+            bonds = InstrumentFile.Read(options.InstrumentsFile, options.ReportingCurrency);
         }
         catch (CsvFileException ex)
         {
@@ -49,6 +49,9 @@ public static class EngineFactory
         BaseGate = new FitQualityGate(options.BaseMaxRmseBp, options.BaseMaxErrorBp, options.BaseMinQuotes),
         SpreadGate = new FitQualityGate(options.SpreadMaxRmseBp, options.SpreadMaxErrorBp, options.SpreadMinQuotes),
         StaleAfter = options.StaleQuoteAfter,
+        ReportingCurrency = options.ReportingCurrency,
+        QuoteClockTolerance = options.QuoteClockTolerance,
+        ValuationCurveSource = options.ValuationCurveSource,
     };
 
     /// <summary>Spot date for a trade date: one business day later (weekends only; holiday calendars per currency are future work).</summary>

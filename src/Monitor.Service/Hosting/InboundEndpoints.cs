@@ -1,5 +1,8 @@
 using System.Net.Mime;
 using MassTransit;
+using Microsoft.Extensions.DependencyInjection;
+using Microsoft.Extensions.Logging;
+using Monitor.Contracts.V1;
 using MassTransit.Configuration;
 using Monitor.Service.Consumers;
 using Monitor.Service.Messaging;
@@ -32,21 +35,24 @@ public static class InboundEndpoints
         ArgumentNullException.ThrowIfNull(cfg);
         // Lets .NET producers on this bus send plain JSON too (content type application/json); the default stays the envelope.
         cfg.AddRawJsonSerializer(RawSerializerOptions.AnyMessageType);
-        Endpoint<InstrumentDefinedConsumer>(context, cfg, Instruments, transport);
-        Endpoint<BondQuotedConsumer>(context, cfg, Quotes, transport);
-        Endpoint<TradeBookedConsumer>(context, cfg, Trades, transport);
-        Endpoint<ParYieldsPublishedConsumer>(context, cfg, ParYields, transport);
+        Endpoint<InstrumentDefinedConsumer, InstrumentDefined>(context, cfg, Instruments, transport);
+        Endpoint<BondQuotedConsumer, BondQuoted>(context, cfg, Quotes, transport);
+        Endpoint<TradeBookedConsumer, TradeBooked>(context, cfg, Trades, transport);
+        Endpoint<ParYieldsPublishedConsumer, ParYieldsPublished>(context, cfg, ParYields, transport);
     }
 
-    private static void Endpoint<TConsumer>(IBusRegistrationContext context, IBusFactoryConfigurator cfg, string queue, TransportOptions transport)
-        where TConsumer : class, IConsumer
+    private static void Endpoint<TConsumer, TMessage>(IBusRegistrationContext context, IBusFactoryConfigurator cfg, string queue, TransportOptions transport)
+        where TConsumer : class, IConsumer<TMessage>
+        where TMessage : class
     {
+        var refusals = context.GetRequiredService<ILoggerFactory>().CreateLogger(RefusalLogEvents.Category);
         cfg.ReceiveEndpoint(queue, e =>
         {
             // Plain JSON is accepted beside MassTransit's envelope; a message without a content type is read as plain JSON.
-            // Both deserializers refuse a body above Transport:MaxMessageBytes before they parse it (SizeCheckedDeserializer).
+            // Both deserializers refuse a body above Transport:MaxMessageBytes before they parse it (SizeCheckedDeserializer); the
+            // plain-JSON one reads the message at once, so a body that is not JSON or a field of the wrong type is a refusal naming it.
             e.AddDeserializer(new SizeCheckedSerializerFactory(new SystemTextJsonMessageSerializerFactory(), transport.MaxMessageBytes));
-            e.AddDeserializer(new SizeCheckedSerializerFactory(new SystemTextJsonRawMessageSerializerFactory(RawSerializerOptions.AnyMessageType), transport.MaxMessageBytes));
+            e.AddDeserializer(new SizeCheckedSerializerFactory(new RefusingJsonDeserializer<TMessage>(refusals), transport.MaxMessageBytes));
             e.DefaultContentType = new ContentType("application/json");
             e.ConcurrentMessageLimit = transport.ConcurrentMessageLimit;
             // Storage failures never reach this policy: the pipeline holds a failing write (Storage/StorageFaultGate) until it
@@ -59,6 +65,8 @@ public static class InboundEndpoints
                 r.Ignore<System.Text.Json.JsonException>();
                 r.Intervals(100, 500, 2000);
             });
+            // Inside the retry: an unreadable body becomes a refusal naming the field, and each refusal is logged once.
+            e.UseFilter(new RefusalFilter(typeof(TMessage), refusals));
             e.ConfigureConsumer<TConsumer>(context);
         });
     }

@@ -19,6 +19,13 @@ public sealed class MonitorOptions
     /// <summary>Optional quotes to fit the opening curves from before the first message.</summary>
     public string? OpeningQuotesFile { get; set; }
 
+    /// <summary>
+    /// The currency every figure is in (ISO 4217 code). Until several currencies are supported, a bond in any other
+    /// currency is refused: in the instruments file (the start stops), in InstrumentDefined, and trades and quotes on
+    /// it. Default XTS, the ISO 4217 code reserved for testing that the example files use: set your books' currency.
+    /// </summary>
+    public string ReportingCurrency { get; set; } = "XTS";
+
     /// <summary>Valuation (spot) date; default the next business day after today's business date (<see cref="BusinessDay"/>).</summary>
     public DateOnly? ValuationDate { get; set; }
 
@@ -42,6 +49,18 @@ public sealed class MonitorOptions
 
     /// <summary>Period of book snapshots in the exposure log; 0 turns them off. Default 5 minutes.</summary>
     public TimeSpan SnapshotInterval { get; set; } = TimeSpan.FromMinutes(5);
+
+    /// <summary>
+    /// What fits the government curve the books are valued on: BondQuotes (default; par yields then fit the reference
+    /// curve government-par) or ParYields (government bond quotes then fit the reference curve government-bonds).
+    /// </summary>
+    public Engine.ValuationCurveSource ValuationCurveSource { get; set; } = Engine.ValuationCurveSource.BondQuotes;
+
+    /// <summary>
+    /// How far ahead of the service's clock a quote may be stamped; one stamped further ahead is refused (to the error
+    /// queue, naming quoteTime), so a bad stamp never outranks the good quotes after it. Default 5 s.
+    /// </summary>
+    public TimeSpan QuoteClockTolerance { get; set; } = TimeSpan.FromSeconds(5);
 
     /// <summary>Quotes older than this are left out of fits as stale. Default 4 hours.</summary>
     public TimeSpan StaleQuoteAfter { get; set; } = TimeSpan.FromHours(4);

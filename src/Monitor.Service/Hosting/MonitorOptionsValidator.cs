@@ -14,6 +14,14 @@ public sealed class MonitorOptionsValidator : IValidateOptions<MonitorOptions>
         RequireFile(failures, "Monitor:PositionsFile", options.PositionsFile, required: false);
         RequireFile(failures, "Monitor:OpeningQuotesFile", options.OpeningQuotesFile, required: false);
         failures.AddRange(options.BusinessDay.Validate());
+        if (options.ReportingCurrency is null || options.ReportingCurrency.Length != 3 || !options.ReportingCurrency.All(char.IsAsciiLetterUpper))
+        {
+            failures.Add($"Monitor:ReportingCurrency: '{options.ReportingCurrency}' is not an ISO 4217 code; use three capital letters, e.g. EUR.");
+        }
+        if (!Enum.IsDefined(options.ValuationCurveSource))
+        {
+            failures.Add($"Monitor:ValuationCurveSource: '{options.ValuationCurveSource}' is not a source; use BondQuotes or ParYields.");
+        }
         if (!Enum.IsDefined(options.BaseCurveModel))
         {
             failures.Add($"Monitor:BaseCurveModel: '{options.BaseCurveModel}' is not a model; use NelsonSiegel or Svensson.");
@@ -21,6 +29,7 @@ public sealed class MonitorOptionsValidator : IValidateOptions<MonitorOptions>
         Range(failures, "Monitor:ConflationWindow", options.ConflationWindow, TimeSpan.Zero, TimeSpan.FromSeconds(10), "e.g. 00:00:00.020");
         Range(failures, "Monitor:BookEventInterval", options.BookEventInterval, TimeSpan.Zero, TimeSpan.FromMinutes(10), "e.g. 00:00:01, or 0 to send book figures after every change");
         Range(failures, "Monitor:SnapshotInterval", options.SnapshotInterval, TimeSpan.Zero, TimeSpan.FromDays(1), "e.g. 00:05:00, or 0 to turn snapshots off");
+        Range(failures, "Monitor:QuoteClockTolerance", options.QuoteClockTolerance, TimeSpan.Zero, TimeSpan.FromMinutes(5), "e.g. 00:00:05");
         Range(failures, "Monitor:StaleQuoteAfter", options.StaleQuoteAfter, TimeSpan.FromSeconds(1), TimeSpan.FromDays(7), "e.g. 04:00:00");
         Positive(failures, "Monitor:BaseMaxRmseBp", options.BaseMaxRmseBp);
         Positive(failures, "Monitor:BaseMaxErrorBp", options.BaseMaxErrorBp);

@@ -47,6 +47,17 @@ public static class ServiceRegistration
         services.AddOptions<HealthOptions>().Bind(configuration.GetSection(HealthOptions.SectionName)).ValidateOnStart();
         services.AddSingleton<IValidateOptions<HealthOptions>>(new HealthOptionsValidator());
 
+        // The record key (HMAC-SHA256 of the exposure log, its checkpoints and the journal): from a secret file or the environment.
+        services.AddOptions<RecordOptions>().Bind(configuration.GetSection(RecordOptions.SectionName)).ValidateOnStart();
+        services.AddSingleton<IValidateOptions<RecordOptions>>(sp => new RecordOptionsValidator(
+            sp.GetRequiredService<IOptions<ExposureLogOptions>>(), sp.GetRequiredService<IOptions<JournalOptions>>(), Environment.GetEnvironmentVariable));
+        services.AddSingleton(sp =>
+        {
+            var record = sp.GetRequiredService<IOptions<RecordOptions>>().Value;
+            var (key, problem) = RecordKey.Resolve(record.KeyFile, "Record:KeyFile", Environment.GetEnvironmentVariable);
+            return key ?? throw new OptionsValidationException(RecordOptions.SectionName, typeof(RecordOptions), [problem!]);
+        });
+
         services.AddMetrics();
         services.AddSingleton<MonitorMetrics>();
         // The trade journal sits beside the exposure log unless Journal:Folder names another place.
@@ -75,14 +86,17 @@ public static class ServiceRegistration
         // One writer per folder: taken before the journal is replayed or either folder written, held until disposal.
         services.AddSingleton(sp => new WriterLocks(sp.GetRequiredService<IOptions<ExposureLogOptions>>().Value.Folder, sp.GetRequiredService<IOptions<JournalOptions>>().Value.Folder));
         services.AddSingleton(sp => AfterWriterLocks(sp, () => EngineRecovery.Start(
-            EngineFactory.Create(sp.GetRequiredService<IOptions<MonitorOptions>>().Value, sp.GetRequiredService<TimeProvider>()),
+            EngineFactory.Create(sp.GetRequiredService<IOptions<MonitorOptions>>().Value, sp.GetRequiredService<TimeProvider>())
+                .ContinuingCurveVersions(LoggedCurveVersions.Read(sp.GetRequiredService<IOptions<ExposureLogOptions>>().Value.Folder)),
+            sp.GetRequiredService<RecordKey>(),
             sp.GetRequiredService<IOptions<JournalOptions>>().Value,
+            sp.GetRequiredService<IOptions<ExposureLogOptions>>().Value,
             sp.GetRequiredService<BusinessDayRoll>(),
             sp.GetRequiredService<IOptions<MonitorOptions>>().Value.PositionsFile,
             sp.GetRequiredService<TimeProvider>().GetUtcNow())));
         services.AddSingleton(sp => sp.GetRequiredService<EngineRecovery>().Engine);
-        services.AddSingleton(sp => AfterWriterLocks(sp, () => new TradeJournal(sp.GetRequiredService<IOptions<JournalOptions>>().Value, sp.GetRequiredService<TimeProvider>(), sp.GetRequiredService<BusinessDayRoll>())));
-        services.AddSingleton(sp => AfterWriterLocks(sp, () => new ExposureLogWriter(sp.GetRequiredService<IOptions<ExposureLogOptions>>().Value, sp.GetRequiredService<TimeProvider>(), sp.GetRequiredService<BusinessDayRoll>())));
+        services.AddSingleton(sp => AfterWriterLocks(sp, () => new TradeJournal(sp.GetRequiredService<RecordKey>(), sp.GetRequiredService<IOptions<JournalOptions>>().Value, sp.GetRequiredService<TimeProvider>(), sp.GetRequiredService<BusinessDayRoll>())));
+        services.AddSingleton(sp => AfterWriterLocks(sp, () => new ExposureLogWriter(sp.GetRequiredService<RecordKey>(), sp.GetRequiredService<IOptions<ExposureLogOptions>>().Value, sp.GetRequiredService<TimeProvider>(), sp.GetRequiredService<BusinessDayRoll>())));
         // Every exposure log and journal append of the pipeline runs through the gate: a storage failure stalls, never faults a message.
         services.AddSingleton<StorageFaultGate>();
         services.AddSingleton<QuoteInbox>();
@@ -95,6 +109,7 @@ public static class ServiceRegistration
         services.AddSingleton<EventOutbox>();
         services.AddSingleton<RiskPipeline>();
         services.AddSingleton<LimitsFileStatus>();
+        services.AddSingleton<ExposureLogCheckpointer>();
 
         var transport = configuration.GetSection(TransportOptions.SectionName).Get<TransportOptions>() ?? new TransportOptions();
         addBus(services, bus =>
@@ -137,11 +152,15 @@ public static class ServiceRegistration
         // Started after the bus, in this order: the outbox, opening curves, then the refit loop and the snapshots.
         // Hosted services stop in reverse order, the bus last: the outbox drains while the broker is still connected.
         services.AddHostedService(sp => sp.GetRequiredService<EventOutbox>());
+        // Second, so it stops just before the outbox: its stop checkpoint comes after the stop records (stop-snapshot, service-stopped) and is still published.
+        services.AddHostedService<CheckpointWorker>();
         services.AddHostedService<StartOfDayService>();
         services.AddHostedService<RetentionAtStart>();
         services.AddHostedService<CurveRefitWorker>();
         services.AddHostedService<SnapshotWorker>();
-        // The day's close at the roll; checkpoints and retention hook in as IDayCloseListener singletons.
+        // The day's close at the roll, then its listeners in this order: a day-close checkpoint of the log, then retention for the new day.
+        services.AddSingleton<IDayCloseListener, CheckpointAtDayClose>();
+        services.AddSingleton<IDayCloseListener, RetentionAtDayClose>();
         services.AddHostedService<DayCloseWorker>();
         services.AddHostedService<LimitsFileWatcher>();
         services.AddHostedService<LimitExpiryWorker>();
@@ -178,7 +197,7 @@ public static class ServiceRegistration
             .ValidateOnStart();
         services.AddSingleton<IValidateOptions<RetentionOptions>>(sp => new RetentionOptionsValidator(() =>
             (sp.GetRequiredService<IOptions<ExposureLogOptions>>().Value.Folder, sp.GetRequiredService<IOptions<JournalOptions>>().Value.Folder)));
-        services.TryAddSingleton<IClosedDays>(sp => new DayEndRecordClosedDays(sp.GetRequiredService<IOptions<ExposureLogOptions>>().Value.Folder, sp.GetRequiredService<IOptions<JournalOptions>>().Value.Folder));
+        services.TryAddSingleton<IClosedDays>(sp => new DayEndRecordClosedDays(sp.GetRequiredService<IOptions<ExposureLogOptions>>().Value.Folder, sp.GetRequiredService<RecordKey>(), sp.GetRequiredService<IOptions<JournalOptions>>().Value.Folder));
         services.AddSingleton(sp => new DayFileRetention(
             sp.GetRequiredService<IOptions<RetentionOptions>>().Value,
             sp.GetRequiredService<IOptions<ExposureLogOptions>>().Value.Folder,

@@ -52,11 +52,7 @@ public sealed class TransportOptionsValidator : IValidateOptions<TransportOption
             {
                 failures.Add("Transport:Broker:VirtualHost: is blank; use / for the default virtual host.");
             }
-            var (_, problem) = BrokerCredentials.Resolve(broker, _environment);
-            if (problem is not null)
-            {
-                failures.Add(problem);
-            }
+            failures.AddRange(BrokerCredentials.ResolveAll(broker, _environment).Problems);
         }
         return failures.Count == 0 ? ValidateOptionsResult.Success : ValidateOptionsResult.Fail(failures);
     }

@@ -47,6 +47,9 @@ public sealed class JournalContents
     /// <summary>Bytes up to and including the last line feed: what stays when a torn tail is cut off.</summary>
     public long CompleteLength { get; }
 
+    /// <summary>The mac of the last good line (64 zeros for an empty or missing file): the next line's prevMac.</summary>
+    public string LastMac { get; init; } = JournalLine.Genesis;
+
     public static JournalContents Empty(string path) =>
         new(path, [], new Dictionary<string, BondQuote>(StringComparer.Ordinal), [], 0, 0) { Days = [path] };
 
@@ -70,9 +73,10 @@ public sealed class JournalContents
         return new JournalContents(last.Path, [.. days.SelectMany(d => d.Changes)], quotes, [.. days.SelectMany(d => d.Problems)], last.LastSeq, last.CompleteLength)
         {
             Days = [.. days.Select(d => d.Path)],
+            LastMac = last.LastMac,
         };
     }
 
     internal JournalContents WithDays(IReadOnlyList<string> days) =>
-        new(Path, Changes, LatestQuotes, Problems, LastSeq, CompleteLength) { Days = days };
+        new(Path, Changes, LatestQuotes, Problems, LastSeq, CompleteLength) { Days = days, LastMac = LastMac };
 }

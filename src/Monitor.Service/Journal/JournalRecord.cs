@@ -9,4 +9,10 @@ public sealed record JournalRecord(long Seq, DateTimeOffset WrittenTime, TradeIn
 {
     /// <summary>The day file it was read from (file name), for messages.</summary>
     public string File { get; init; } = string.Empty;
+
+    /// <summary>mac of the line before in the day file (64 zeros for the first line).</summary>
+    public string PrevMac { get; init; } = string.Empty;
+
+    /// <summary>This line's HMAC-SHA256 under the record key.</summary>
+    public string Mac { get; init; } = string.Empty;
 }

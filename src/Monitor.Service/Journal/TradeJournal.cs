@@ -7,7 +7,7 @@ using Monitor.Service.Storage;
 namespace Monitor.Service.Journal;
 
 /// <summary>
-/// Append-only journal of accepted trades and of quotes, one file per business day (format MTJ-1, README.md in
+/// Append-only journal of accepted trades and of quotes, one file per business day (format trade-journal/2, README.md in
 /// this folder). Group commit: appends go through a queue to one writer loop, which writes every record waiting
 /// and then fsyncs once (<c>FileStream.Flush(true)</c>) for the whole batch, so concurrent callers share a flush.
 /// <see cref="AppendTradeAsync"/> completes only after its record is on the disk; <see cref="AppendQuote"/> does
@@ -20,6 +20,7 @@ public sealed class TradeJournal : IAsyncDisposable
 {
     private readonly string _folder;
     private readonly BusinessDayRoll _roll;
+    private readonly RecordKey _key;
     private readonly int _maxBatch;
     private readonly TimeProvider _time;
     private readonly Channel<Entry> _queue = Channel.CreateUnbounded<Entry>(new UnboundedChannelOptions { SingleReader = true });
@@ -29,8 +30,10 @@ public sealed class TradeJournal : IAsyncDisposable
     private FileStream? _stream;
     private string? _path;
     private long _seq;
+    private string _lastMac = JournalLine.Genesis;
     private long _goodLength;
     private bool _needsRepair;
+    private string? _lost;
     private volatile string? _lastError;
     private long _flushes;
     private long _records;
@@ -38,8 +41,9 @@ public sealed class TradeJournal : IAsyncDisposable
     /// <summary>How long quotes of a failed batch wait for a retry when no other append comes.</summary>
     internal static readonly TimeSpan QuoteRetryDelay = TimeSpan.FromSeconds(1);
 
-    public TradeJournal(JournalOptions options, TimeProvider time, BusinessDayRoll? roll = null)
+    public TradeJournal(RecordKey key, JournalOptions options, TimeProvider time, BusinessDayRoll? roll = null)
     {
+        ArgumentNullException.ThrowIfNull(key);
         ArgumentNullException.ThrowIfNull(options);
         ArgumentNullException.ThrowIfNull(time);
         if (string.IsNullOrWhiteSpace(options.Folder))
@@ -52,6 +56,7 @@ public sealed class TradeJournal : IAsyncDisposable
         }
         _folder = options.Folder;
         _roll = roll ?? BusinessDayRoll.UtcMidnight;
+        _key = key;
         _maxBatch = options.MaxBatch;
         _time = time;
         _loop = Task.Run(RunAsync);
@@ -192,11 +197,13 @@ public sealed class TradeJournal : IAsyncDisposable
         var now = _time.GetUtcNow();
         var path = JournalFiles.PathOf(_folder, _roll.BusinessDateOf(now));
         var seq = _seq;
+        var mac = _lastMac;
         var written = 0L;
         try
         {
             EnsureOpen(path);
             seq = _seq;
+            mac = _lastMac;
             var durable = false;
             foreach (var entry in batch)
             {
@@ -206,9 +213,10 @@ public sealed class TradeJournal : IAsyncDisposable
                     continue; // a flush request: no line of its own
                 }
                 seq++;
-                var line = entry.Trade is { } trade ? JournalLine.Trade(seq, now, trade)
-                    : entry.Definition is { } bond ? JournalLine.Definition(seq, now, bond)
-                    : JournalLine.Quote(seq, now, entry.Quote!);
+                var line = entry.Trade is { } trade ? JournalLine.Trade(_key, seq, now, trade, mac)
+                    : entry.Definition is { } bond ? JournalLine.Definition(_key, seq, now, bond, mac)
+                    : JournalLine.Quote(_key, seq, now, entry.Quote!, mac);
+                mac = JournalLine.MacIn(line);
                 _stream!.Write(line);
                 written += line.Length;
             }
@@ -232,6 +240,7 @@ public sealed class TradeJournal : IAsyncDisposable
         }
         Interlocked.Add(ref _records, seq - _seq);
         _seq = seq;
+        _lastMac = mac;
         _goodLength += written;
         _lastError = null;
         foreach (var entry in batch)
@@ -243,6 +252,14 @@ public sealed class TradeJournal : IAsyncDisposable
     /// <summary>Opens the day file for appending: cuts back what a failed write left, and on first opening a file continues its sequence.</summary>
     private void EnsureOpen(string path)
     {
+        if (_lost is not null)
+        {
+            throw new IOException(_lost);
+        }
+        if (_stream is not null && _path is not null)
+        {
+            CheckStillOnDisk(_path);
+        }
         if (_stream is not null && !_needsRepair && string.Equals(path, _path, StringComparison.Ordinal))
         {
             return;
@@ -256,7 +273,7 @@ public sealed class TradeJournal : IAsyncDisposable
         if (!string.Equals(path, _path, StringComparison.Ordinal))
         {
             Directory.CreateDirectory(_folder);
-            var existing = JournalReplay.ReadFile(path);
+            var existing = JournalReplay.ReadFile(_key, path);
             if (existing.CompleteLength < FileLength.Of(path))
             {
                 PartialWriteCutBack.CutBackTo(path, existing.CompleteLength);
@@ -267,10 +284,30 @@ public sealed class TradeJournal : IAsyncDisposable
             }
             _path = path;
             _seq = existing.LastSeq;
+            _lastMac = existing.LastMac;
             _goodLength = existing.CompleteLength;
         }
         _stream = new FileStream(path, FileMode.Append, FileAccess.Write, FileShare.Read, bufferSize: 64 * 1024);
         _needsRepair = false;
+    }
+
+    /// <summary>
+    /// Refuses to write into a file that is no longer the one on disk: the day file (or its folder) was deleted or
+    /// replaced under the writer, so appends would go into an unlinked file and vanish at the next start. The path must
+    /// still exist with exactly the bytes this writer put there (a replacement of the very same length is not caught).
+    /// From then on every write fails (a storage fault: <c>storage</c> Unhealthy, acknowledgements stop) until the
+    /// file is restored and the service restarted.
+    /// </summary>
+    private void CheckStillOnDisk(string path)
+    {
+        var onDisk = File.Exists(path) ? FileLength.Of(path) : -1;
+        if (onDisk != _goodLength)
+        {
+            _lost = onDisk < 0
+                ? $"the journal day file {path} (or its folder) was deleted while the service was writing it; restore it and restart the service."
+                : $"the journal day file {path} holds {onDisk} bytes but this writer wrote {_goodLength}: it was replaced or changed while the service was writing it; restore it and restart the service.";
+            throw new IOException(_lost);
+        }
     }
 
     private void CloseQuietly()

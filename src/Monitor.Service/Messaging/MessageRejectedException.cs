@@ -8,7 +8,7 @@ namespace Monitor.Service.Messaging;
 public sealed class MessageRejectedException : Exception
 {
     public MessageRejectedException(string field, string? value, string reason)
-        : base(value is null ? $"{field}: {reason}" : $"{field}: '{value}' {reason}")
+        : base(value is null ? $"{field}: {reason}" : $"{field}: '{Clip(value)}' {reason}")
     {
         Field = field;
         Value = value;
@@ -21,4 +21,7 @@ public sealed class MessageRejectedException : Exception
     public string? Value { get; }
 
     public string Reason { get; }
+
+    /// <summary>A value quoted in the message is cut at 40 characters: an oversized field must not make an oversized log line.</summary>
+    private static string Clip(string value) => value.Length > 43 ? value[..40] + "..." : value;
 }

@@ -42,9 +42,12 @@ public static class EventMapper
         CauseMessageId = MessageId(cause),
         CauseMessageType = cause.MessageType,
         ComputedAt = now,
+        Provisional = update.Provisional,
+        ProvisionalReasons = update.Provisional ? update.ProvisionalReasons : null,
     };
 
-    public static LimitStatusChanged StatusChanged(LimitStatusChange change, IReadOnlyList<CurveVersion> curves, Cause cause, DateTimeOffset now) => new()
+    /// <summary>A limit's status change; <paramref name="provisionalReasons"/> say why figures in the limit's scope are provisional (<see cref="RiskEngine.ProvisionalReasons"/>), empty when none is.</summary>
+    public static LimitStatusChanged StatusChanged(LimitStatusChange change, IReadOnlyList<CurveVersion> curves, Cause cause, DateTimeOffset now, IReadOnlyList<string> provisionalReasons) => new()
     {
         LimitId = change.LimitId,
         Scope = change.Scope.Level.ToString().ToLowerInvariant(),
@@ -60,6 +63,8 @@ public static class EventMapper
         CauseMessageType = cause.MessageType,
         EventTime = cause.EventTime,
         ProcessedAt = now,
+        Provisional = provisionalReasons.Count > 0,
+        ProvisionalReasons = provisionalReasons.Count > 0 ? provisionalReasons : null,
     };
 
     /// <summary>Status names on the wire and in the log: within, warning, breach; retired (removed by a reload), expired (a temporary limit past its expiry).</summary>

@@ -317,7 +317,7 @@ public sealed partial class RiskPipeline
 
     /// <summary>
     /// Closes business day <paramref name="day"/>: each valued book's <c>close-snapshot</c>, then one <c>day-closed</c>
-    /// record, in one write. Returns the close with that record's seq and hash (for <see cref="IDayCloseListener"/>s).
+    /// record, in one write. Returns the close with that record's seq and mac (for <see cref="IDayCloseListener"/>s).
     /// </summary>
     public async Task<DayClose> CloseDayAsync(DateOnly day, DateTimeOffset rollAt, CancellationToken cancellationToken)
     {
@@ -334,7 +334,7 @@ public sealed partial class RiskPipeline
                 ["books"] = books,
             });
             await WriteLogAsync(batch, cancellationToken).ConfigureAwait(false);
-            return new DayClose(day, rollAt, _log.LastSeq, _log.LastHash, books);
+            return new DayClose(day, rollAt, _log.LastSeq, _log.LastMac, books);
         }
         finally
         {
@@ -384,6 +384,7 @@ public sealed partial class RiskPipeline
             {
                 payload["businessDate"] = Day(d);
             }
+            AddProvisional(payload, book.ProvisionalReasons);
             batch.Add(kind, now, new ExposureLogCause(null, "timer"), payload);
             count++;
         }
@@ -416,7 +417,7 @@ public sealed partial class RiskPipeline
             if (outcome.Accepted)
             {
                 batch.Add(ExposureLogKinds.CurveFitted, cause.EventTime, logCause, payload);
-                messages.Add(EventMapper.CurveFitted(outcome, CurveKeyLabel.Of(outcome.CurveKey) == CurveKeyLabel.Government ? null : CurveKeyLabel.Government, cause, now));
+                messages.Add(EventMapper.CurveFitted(outcome, CurveKeyLabel.Of(outcome.CurveKey) == CurveKeyLabel.Government || CurveKeyLabel.IsReference(outcome.CurveKey) ? null : CurveKeyLabel.Government, cause, now));
             }
             else
             {
@@ -440,9 +441,15 @@ public sealed partial class RiskPipeline
                 ["utilisation"] = change.Utilisation,
                 ["curves"] = result.CurvesUsed,
             };
+            var provisional = _engine.ProvisionalReasons(change.Scope);
+            AddProvisional(payload, provisional);
             batch.Add(ExposureLogKinds.StatusChange, cause.EventTime, logCause, payload);
-            messages.Add(EventMapper.StatusChanged(change, curves, cause, now));
+            messages.Add(EventMapper.StatusChanged(change, curves, cause, now, provisional));
             _metrics.StatusChanges.Add(1);
+            // Also a line of the service log, in the event's words; a breach at Warning, other changes at Information.
+            LogLimitStatus(change.Current == Limits.LimitStatus.Breach ? LogLevel.Warning : LogLevel.Information, change.LimitId,
+                change.Scope.Level.ToString().ToLowerInvariant(), change.Scope.Id, Limits.LimitsFileParser.JsonName(change.Measure),
+                EventMapper.StatusName(change.Current), EventMapper.StatusName(change.Previous), change.Exposure, change.LimitValue);
         }
         // One fsync for the change's records, all on the disk before any of its events can be published.
         await WriteLogAsync(batch, cancellationToken).ConfigureAwait(false);
@@ -458,12 +465,12 @@ public sealed partial class RiskPipeline
         _metrics.QueueLag.Record((now - cause.EventTime).TotalMilliseconds);
         // Published by the outbox, in order, outside this lock: 1,000 book events awaited here held every quote and
         // trade behind the broker's round trips (measured with `monitor load`). Each event has one record of the batch,
-        // in the same order: its seq and hash give the event's stable id, and the outbox keeps it until confirmed.
+        // in the same order: its seq and mac give the event's stable id, and the outbox keeps it until confirmed.
         var recorded = new OutboxEntry[messages.Count];
         for (var i = 0; i < messages.Count; i++)
         {
-            var (seq, hash) = batch.Records[i];
-            recorded[i] = new OutboxEntry(seq, OutboxEntry.IdOf(seq, hash), messages[i]);
+            var (seq, mac) = batch.Records[i];
+            recorded[i] = new OutboxEntry(seq, OutboxEntry.IdOf(seq, mac), messages[i]);
         }
         if (alert is not null)
         {
@@ -484,6 +491,16 @@ public sealed partial class RiskPipeline
             var started = Stopwatch.GetTimestamp();
             await _storage.RunAsync(StorageFaultGate.ExposureLog, () => _log.Append(batch), cancellationToken).ConfigureAwait(false);
             _metrics.LogWriteDuration.Record(Stopwatch.GetElapsedTime(started).TotalMilliseconds);
+        }
+    }
+
+    /// <summary>Marks a record built on provisional figures (members absent otherwise, so final records keep their shape).</summary>
+    private static void AddProvisional(Dictionary<string, object?> payload, IReadOnlyList<string> reasons)
+    {
+        if (reasons.Count > 0)
+        {
+            payload["provisional"] = true;
+            payload["provisionalReasons"] = reasons.ToArray();
         }
     }
 
@@ -553,6 +570,9 @@ public sealed partial class RiskPipeline
 
     private static ExposureLogCause LogCause(Cause cause) =>
         new(string.IsNullOrEmpty(cause.MessageId) ? null : cause.MessageId, cause.MessageType);
+
+    [LoggerMessage(Message = "Limit {LimitId} ({Scope} {ScopeId}, {Measure}) is {Status}, was {PreviousStatus}: value {Value} against bound {Bound}")]
+    private partial void LogLimitStatus(LogLevel level, string limitId, string scope, string scopeId, string measure, string status, string previousStatus, double value, double bound);
 
     [LoggerMessage(Level = LogLevel.Information, Message = "Trade {TradeId} version {Version} ignored: {Outcome}")]
     private partial void LogTradeIgnored(string tradeId, int version, string outcome);

@@ -6,6 +6,7 @@ using Monitor.Service.Audit;
 using Monitor.Service.Engine;
 using Monitor.Service.Hosting;
 using Monitor.Service.Journal;
+using Monitor.Service.Storage;
 
 namespace Monitor.Service.Pipeline;
 
@@ -13,7 +14,9 @@ namespace Monitor.Service.Pipeline;
 /// Runs once the bus is up: builds the engine (instruments, positions, limits: a bad file stops the start; then
 /// every journal day since the start-of-day state replayed), reports what the replay did and logs and publishes its refit, then fits the opening curves from the opening quotes file when one is configured, publishing the result.
 /// </summary>
-public sealed partial class StartOfDayService(RiskPipeline pipeline, EngineRecovery recovery, IOptions<MonitorOptions> options, IOptions<ExposureLogOptions> log, ILogger<StartOfDayService> logger)
+public sealed partial class StartOfDayService(
+    RiskPipeline pipeline, EngineRecovery recovery, IOptions<MonitorOptions> options, IOptions<ExposureLogOptions> log,
+    ExposureLogWriter writer, StorageFaultGate storage, TimeProvider time, ILogger<StartOfDayService> logger)
     : IHostedService
 {
     public async Task StartAsync(CancellationToken cancellationToken)
@@ -41,6 +44,15 @@ public sealed partial class StartOfDayService(RiskPipeline pipeline, EngineRecov
         {
             LogJournalProblem(problem.ToString());
         }
+        foreach (var loss in recovery.Losses)
+        {
+            // Journal:AcceptLoss let the start through: each loss goes on record before anything else happens.
+            LogJournalLoss(loss);
+            var payload = new Dictionary<string, object?> { ["journal"] = Path.GetFileName(recovery.Journal.Path), ["loss"] = loss };
+            await storage.RunAsync(StorageFaultGate.ExposureLog,
+                () => writer.Append(ExposureLogKinds.JournalLoss, time.GetUtcNow(), new ExposureLogCause(null, "journal-accept-loss"), payload),
+                cancellationToken).ConfigureAwait(false);
+        }
         var restored = await pipeline.RecordReplayedTradesAsync(recovery.Journal.Trades, log.Value.Folder, cancellationToken).ConfigureAwait(false);
         if (restored > 0)
         {
@@ -63,7 +75,16 @@ public sealed partial class StartOfDayService(RiskPipeline pipeline, EngineRecov
         }
     }
 
-    public Task StopAsync(CancellationToken cancellationToken) => Task.CompletedTask;
+    /// <summary>Stopped after the refit loop and the stop records (hosted services stop in reverse order), before the outbox and the bus.</summary>
+    /// <remarks>Reads nothing under the pipeline's lock: a write stalled by a failing disk may hold it.</remarks>
+    public Task StopAsync(CancellationToken cancellationToken)
+    {
+        LogStopped(recovery.Engine.ValuationDate);
+        return Task.CompletedTask;
+    }
+
+    [LoggerMessage(Level = LogLevel.Information, Message = "Monitor stopping for valuation date {ValuationDate:yyyy-MM-dd}: refits ended, stop records written; publishing what is left, then closing the bus")]
+    private partial void LogStopped(DateOnly valuationDate);
 
     [LoggerMessage(Level = LogLevel.Information, Message = "Monitor started for valuation date {ValuationDate:yyyy-MM-dd}: {Books} books, {Instruments} instruments")]
     private partial void LogStarted(DateOnly valuationDate, int books, int instruments);
@@ -71,7 +92,7 @@ public sealed partial class StartOfDayService(RiskPipeline pipeline, EngineRecov
     [LoggerMessage(Level = LogLevel.Information, Message = "Start-of-day state: {Reason}; journal files replayed: {Days}")]
     private partial void LogStartOfDay(string reason, string days);
 
-    [LoggerMessage(Level = LogLevel.Warning, Message = "Recovered from the trade journal: {Applied} trades applied, {Duplicates} duplicates, {Superseded} superseded, {Definitions} instrument definitions, {Quotes} quotes kept, {Rejected} quotes refused")]
+    [LoggerMessage(Level = LogLevel.Information, Message = "Recovered from the trade journal: {Applied} trades applied, {Duplicates} duplicates, {Superseded} superseded, {Definitions} instrument definitions, {Quotes} quotes kept, {Rejected} quotes refused")]
     private partial void LogRecovered(int applied, int duplicates, int superseded, int definitions, int quotes, int rejected);
 
     [LoggerMessage(Level = LogLevel.Warning, Message = "Journalled quote not replayed: {Refusal}")]
@@ -85,6 +106,9 @@ public sealed partial class StartOfDayService(RiskPipeline pipeline, EngineRecov
 
     [LoggerMessage(Level = LogLevel.Warning, Message = "Trade journal problem found on replay: {Problem}")]
     private partial void LogJournalProblem(string problem);
+
+    [LoggerMessage(Level = LogLevel.Error, Message = "Journal:AcceptLoss: started although {Loss}; written to the exposure log as a journal-loss record")]
+    private partial void LogJournalLoss(string loss);
 
     [LoggerMessage(Level = LogLevel.Information, Message = "Opening curves fitted from {Count} quotes in {Path}")]
     private partial void LogOpeningFit(int count, string path);

@@ -4,13 +4,13 @@ namespace Monitor.Service.Storage;
 
 /// <summary>
 /// A day is closed when its exposure-log day file exists and either its last complete record is a
-/// <c>service-stopped</c> record that parses with a matching hash (the service stopped after the
-/// day's last record), or the next day file opens with the <c>day-closed</c> record of that day (written at the roll,
-/// after the day's <c>close-snapshot</c> records). A day with only a journal file, a torn or foreign last line, or any
-/// other last record is open. So is every day from the journal's start-of-day state on (<c>start-of-day.json</c>): a
-/// restart replays those journal days.
+/// <c>service-stopped</c> record whose MAC holds under the record key (the service stopped after the day's last record),
+/// or the next day file opens with the <c>day-closed</c> record of that day (written at the roll, after the day's
+/// <c>close-snapshot</c> records; its MAC checked likewise). A day with only a journal file, a torn or foreign last line,
+/// or any other last record is open. So is every day from the journal's start-of-day state on (<c>start-of-day.json</c>):
+/// a restart replays those journal days.
 /// </summary>
-public sealed class DayEndRecordClosedDays(string exposureLogFolder, string? journalFolder = null) : IClosedDays
+public sealed class DayEndRecordClosedDays(string exposureLogFolder, RecordKey key, string? journalFolder = null) : IClosedDays
 {
     public bool IsClosed(DateOnly day, out string why)
     {
@@ -30,8 +30,8 @@ public sealed class DayEndRecordClosedDays(string exposureLogFolder, string? jou
             why = $"'{path}' does not end with a complete record";
             return false;
         }
-        var parsed = ExposureLogLine.Parse(tail.LastLine);
-        if (parsed.Record is null || !parsed.HashMatches)
+        var parsed = ExposureLogLine.Parse(key, tail.LastLine);
+        if (parsed.Record is null || !parsed.MacMatches)
         {
             why = $"the last line of '{path}' is not a valid record";
             return false;
@@ -72,8 +72,8 @@ public sealed class DayEndRecordClosedDays(string exposureLogFolder, string? jou
         var date = day.ToString("yyyy-MM-dd", System.Globalization.CultureInfo.InvariantCulture);
         foreach (var line in File.ReadLines(next.Path))
         {
-            var parsed = ExposureLogLine.Parse(System.Text.Encoding.UTF8.GetBytes(line));
-            if (parsed.Record is not { } record || !parsed.HashMatches)
+            var parsed = ExposureLogLine.Parse(key, System.Text.Encoding.UTF8.GetBytes(line));
+            if (parsed.Record is not { } record || !parsed.MacMatches)
             {
                 return false;
             }

@@ -1,5 +1,6 @@
 using System.Globalization;
 using System.Text.RegularExpressions;
+using Monitor.Cli.Tests.Support;
 using Monitor.Cli.Demo;
 using Monitor.Service.Audit;
 
@@ -70,10 +71,16 @@ public sealed class DemoRunTests(DemoRunFixture run) : IClassFixture<DemoRunFixt
     {
         Assert.True(run.Outcome.Verification.Intact);
         // Checked again here, independently of the demo's own check.
-        var again = ExposureLogVerifier.VerifyFolder(run.Outcome.ExposureLogFolder);
+        // Under the run's own throw-away key (in the work folder, outside the log folder), against its checkpoints.
+        Assert.False(Monitor.Service.Storage.RecordOptions.IsInside(run.Outcome.KeyFile, run.Outcome.ExposureLogFolder));
+        var key = Monitor.Service.Storage.RecordKey.FromText(File.ReadAllText(run.Outcome.KeyFile), run.Outcome.KeyFile);
+        var again = ExposureLogVerifier.VerifyFolder(key, run.Outcome.ExposureLogFolder, checkpointFolder: run.Outcome.CheckpointFolder);
         Assert.True(again.Intact, string.Join("; ", again.Problems.Select(p => p.Detail)));
         Assert.True(again.Records > 0);
+        Assert.True(again.AnchoredSeq > 0);
+        Assert.False(ExposureLogVerifier.VerifyFolder(TestKey.Value, run.Outcome.ExposureLogFolder).Intact); // another key: refused
         Assert.Contains("verify-log", run.Output, StringComparison.Ordinal);
+        Assert.Contains("--key-file", run.Output, StringComparison.Ordinal);
     }
 
     [Fact]

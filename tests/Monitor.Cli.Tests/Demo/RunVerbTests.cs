@@ -47,6 +47,74 @@ public sealed class RunVerbTests : IDisposable
     }
 
     [Fact(Timeout = 60_000)]
+    public async Task A_word_where_a_bool_or_a_transport_goes_names_the_key_and_the_fix_with_exit_code_2()
+    {
+        var config = Path.Combine(_dir, "service.json");
+        await File.WriteAllTextAsync(config, """
+            { "ExposureLog": { "Folder": "log", "FlushToDisk": "yes" }, "Serilog": { "MinimumLevel": "Fatal" } }
+            """);
+        using var error = new StringWriter();
+
+        Assert.Equal(RunVerb.ConfigurationRefused, await RunVerb.RunAsync(new FileInfo(config), error, CancellationToken.None));
+        Assert.Contains("ExposureLog:FlushToDisk: 'yes' is not a yes/no value; use true or false.", error.ToString(), StringComparison.Ordinal);
+
+        await File.WriteAllTextAsync(config, """{ "Transport": { "Kind": "Rabbit" } }""");
+        using var transport = new StringWriter();
+        Assert.Equal(RunVerb.ConfigurationRefused, await RunVerb.RunAsync(new FileInfo(config), transport, CancellationToken.None));
+        Assert.Contains("Transport:Kind: 'Rabbit' is not one of InMemory, RabbitMq.", transport.ToString(), StringComparison.Ordinal);
+    }
+
+    [Fact(Timeout = 60_000)]
+    public async Task Missing_broker_credentials_are_reported_together()
+    {
+        var config = Path.Combine(_dir, "service.json");
+        await File.WriteAllTextAsync(config, $$"""
+            { "Transport": { "Kind": "RabbitMq", "Broker": { "UserFile": "{{Path.Combine(_dir, "no-user")}}", "PasswordFile": "{{Path.Combine(_dir, "no-password")}}" } },
+              "Serilog": { "MinimumLevel": "Fatal" } }
+            """);
+        using var error = new StringWriter();
+
+        Assert.Equal(RunVerb.ConfigurationRefused, await RunVerb.RunAsync(new FileInfo(config), error, CancellationToken.None));
+        Assert.Contains("Transport:Broker:UserFile", error.ToString(), StringComparison.Ordinal);
+        Assert.Contains("Transport:Broker:PasswordFile", error.ToString(), StringComparison.Ordinal);
+    }
+
+    [BrokerFact(Timeout = 120_000)]
+    public async Task A_wrong_broker_password_is_one_line_and_exit_code_2()
+    {
+        var broker = BrokerFactAttribute.Broker!;
+        var user = Uri.UnescapeDataString(broker.UserInfo.Split(':')[0]);
+        await File.WriteAllTextAsync(Path.Combine(_dir, "user"), user);
+        await File.WriteAllTextAsync(Path.Combine(_dir, "password"), "not-the-password");
+        var vhost = broker.AbsolutePath.Length > 1 ? Uri.UnescapeDataString(broker.AbsolutePath[1..]) : "/";
+        var repo = Path.GetFullPath(Path.Combine(AppContext.BaseDirectory, "..", "..", "..", "..", ".."));
+        var config = Path.Combine(_dir, "service.json");
+        await File.WriteAllTextAsync(config, System.Text.Json.JsonSerializer.Serialize(new
+        {
+            Monitor = new
+            {
+                InstrumentsFile = Path.Combine(repo, "config", "demo", "instruments.csv"),
+                PositionsFile = Path.Combine(repo, "config", "demo", "positions.csv"),
+                LimitsFile = Path.Combine(repo, "config", "demo", "limits.json"),
+            },
+            Transport = new
+            {
+                Kind = "RabbitMq",
+                Broker = new { Host = broker.Host, Port = broker.Port, VirtualHost = vhost, UserFile = Path.Combine(_dir, "user"), PasswordFile = Path.Combine(_dir, "password") },
+            },
+            ExposureLog = new { Folder = Path.Combine(_dir, "exposure-log") },
+            Serilog = new { MinimumLevel = "Fatal" },
+        }));
+        using var error = new StringWriter();
+
+        var exit = await RunVerb.RunAsync(new FileInfo(config), error, CancellationToken.None);
+
+        Assert.Equal(RunVerb.ConfigurationRefused, exit);
+        var line = Assert.Single(error.ToString().Split('\n', StringSplitOptions.RemoveEmptyEntries));
+        Assert.Contains("refused the user name or password", line, StringComparison.Ordinal);
+    }
+
+    [Fact(Timeout = 60_000)]
     public async Task A_second_run_on_folders_another_instance_writes_exits_2_naming_the_folder_and_the_holder()
     {
         var log = Path.Combine(_dir, "exposure-log");

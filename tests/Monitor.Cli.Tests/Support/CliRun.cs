@@ -8,7 +8,7 @@ internal static class CliRun
 {
     public static (int Exit, string Out, string Err) Invoke(params string[] args)
     {
-        var root = new RootCommand("monitor (test)") { FitVerb.Create(), RiskVerb.Create(), ExplainVerb.Create(), BondVerb.Create(), CurveVerb.Create() };
+        var root = new RootCommand("monitor (test)") { FitVerb.Create(), RiskVerb.Create(), ExplainVerb.Create(), BondVerb.Create(), CurveVerb.Create(), VerifyLogVerb.Create() };
         using var output = new StringWriter();
         using var error = new StringWriter();
         var exit = root.Parse(args).Invoke(new InvocationConfiguration { Output = output, Error = error });

@@ -95,7 +95,7 @@ public sealed class FaultRig : IAsyncDisposable
     /// <summary>Every journal day file of the run read back with JournalReplay, in day order.</summary>
     public IReadOnlyList<JournalContents> JournalFiles() =>
         Directory.Exists(JournalFolder)
-            ? Directory.GetFiles(JournalFolder, "journal-*.jsonl").Order(StringComparer.Ordinal).Select(JournalReplay.ReadFile).ToList()
+            ? Directory.GetFiles(JournalFolder, "journal-*.jsonl").Order(StringComparer.Ordinal).Select(p => JournalReplay.ReadFile(TestKey.Value, p)).ToList()
             : [];
 
     /// <summary>The journal's latest version of every trade (what the service's recovery rebuilds the books from).</summary>
@@ -144,7 +144,7 @@ public sealed class FaultRig : IAsyncDisposable
         return records;
     }
 
-    public ExposureLogVerification VerifyExposureLog() => ExposureLogVerifier.VerifyFolder(ExposureLogFolder);
+    public ExposureLogVerification VerifyExposureLog() => ExposureLogVerifier.VerifyFolder(TestKey.Value, ExposureLogFolder);
 
     public async ValueTask DisposeAsync()
     {
@@ -186,6 +186,7 @@ public sealed class FaultRig : IAsyncDisposable
             },
             ["ExposureLog"] = new JsonObject { ["Folder"] = ExposureLogFolder, ["FlushToDisk"] = true },
             ["Journal"] = new JsonObject { ["Folder"] = JournalFolder },
+            ["Record"] = new JsonObject { ["KeyFile"] = TestKey.FileIn(Folder) },
             ["Serilog"] = new JsonObject
             {
                 ["Using"] = new JsonArray("Serilog.Sinks.Console"),

@@ -26,7 +26,7 @@ public class ExposureLogBatchTests
         var clock = Clock();
         var options = Options(folder.Path);
         options.FlushToDisk = flushToDisk;
-        using (var writer = new ExposureLogWriter(options, clock))
+        using (var writer = new ExposureLogWriter(TestKey.Value, options, clock))
         {
             writer.Append(ExposureLogKinds.Snapshot, clock.GetUtcNow(), Cause(0), Figures(0));
             var batch = Batch(5);
@@ -36,7 +36,7 @@ public class ExposureLogBatchTests
             writer.Append(ExposureLogKinds.Snapshot, clock.GetUtcNow(), Cause(7), Figures(7)); // single appends fsync again
         }
 
-        var result = ExposureLogVerifier.VerifyFolder(folder.Path);
+        var result = ExposureLogVerifier.VerifyFolder(TestKey.Value, folder.Path);
         Assert.True(result.Intact, string.Join("; ", result.Problems));
         Assert.Equal(7, result.Records);
     }
@@ -49,7 +49,7 @@ public class ExposureLogBatchTests
         var writes = 0;
         var failAt = 3; // the third line of the batch hits a full disk, half written
         var path = ExposureLogFiles.PathOf(folder.Path, DateOnly.FromDateTime(Day1Morning.UtcDateTime));
-        using (var writer = new ExposureLogWriter(Options(folder.Path), clock, s => new FaultyStream(s, () => ++writes == failAt)))
+        using (var writer = new ExposureLogWriter(TestKey.Value, Options(folder.Path), clock, s => new FaultyStream(s, () => ++writes == failAt)))
         {
             var batch = Batch(5);
             Assert.Throws<ExposureLogWriteException>(() => writer.Append(batch));
@@ -65,7 +65,7 @@ public class ExposureLogBatchTests
         var lines = Lines(path);
         Assert.Equal(5, lines.Length);
         Assert.All(Enumerable.Range(1, 5), i => Assert.Single(lines, l => l.Contains($"\"msg-{i}\"", StringComparison.Ordinal)));
-        var result = ExposureLogVerifier.VerifyFile(path);
+        var result = ExposureLogVerifier.VerifyFile(TestKey.Value, path);
         Assert.True(result.Intact, string.Join("; ", result.Problems));
     }
 

@@ -20,7 +20,7 @@ public class ExposureLogFailureTests
     {
         using var folder = new TempFolder();
         var clock = Clock();
-        using var writer = new ExposureLogWriter(Options(folder.Path), clock);
+        using var writer = new ExposureLogWriter(TestKey.Value, Options(folder.Path), clock);
         var first = writer.Append(ExposureLogKinds.Snapshot, clock.GetUtcNow(), Cause(1), Figures(1));
         clock.Advance(TimeSpan.FromDays(1));
         var day2 = ExposureLogFiles.PathOf(folder.Path, Day2);
@@ -32,7 +32,7 @@ public class ExposureLogFailureTests
         Assert.Contains(day2, ex.Message, StringComparison.Ordinal);
         Assert.False(writer.IsHealthy);
         Assert.Same(ex, writer.LastError);
-        Assert.Equal((1L, first.Hash), (writer.LastSeq, writer.LastHash));
+        Assert.Equal((1L, first.Mac), (writer.LastSeq, writer.LastMac));
         Assert.Throws<ExposureLogWriteException>(() => writer.Append(ExposureLogKinds.Snapshot, clock.GetUtcNow(), Cause(2), Figures(2)));
 
         var health = new ExposureLogHealthCheck(writer);
@@ -45,8 +45,8 @@ public class ExposureLogFailureTests
 
         Assert.True(writer.IsHealthy);
         Assert.Equal(HealthStatus.Healthy, (await health.CheckHealthAsync(new HealthCheckContext())).Status);
-        Assert.Equal((2L, first.Hash), (second.Seq, second.PrevHash));
-        var result = ExposureLogVerifier.VerifyFolder(folder.Path);
+        Assert.Equal((2L, first.Mac), (second.Seq, second.PrevMac));
+        var result = ExposureLogVerifier.VerifyFolder(TestKey.Value, folder.Path);
         Assert.True(result.Intact, string.Join("; ", result.Problems));
         Assert.Equal(2, result.Records);
     }
@@ -58,7 +58,7 @@ public class ExposureLogFailureTests
         var blocker = temp.Combine("not-a-folder");
         File.WriteAllText(blocker, "a file where a folder should be");
         var clock = Clock();
-        using var writer = new ExposureLogWriter(Options(Path.Combine(blocker, "audit")), clock);
+        using var writer = new ExposureLogWriter(TestKey.Value, Options(Path.Combine(blocker, "audit")), clock);
 
         var ex = Assert.Throws<ExposureLogWriteException>(() => writer.Append(ExposureLogKinds.Snapshot, clock.GetUtcNow(), Cause(1), Figures(1)));
         Assert.StartsWith(blocker, ex.Path, StringComparison.Ordinal);
@@ -67,8 +67,8 @@ public class ExposureLogFailureTests
         File.Delete(blocker);
         var record = writer.Append(ExposureLogKinds.Snapshot, clock.GetUtcNow(), Cause(1), Figures(1));
 
-        Assert.Equal((1L, new string('0', 64)), (record.Seq, record.PrevHash));
-        Assert.True(ExposureLogVerifier.VerifyFolder(Path.Combine(blocker, "audit")).Intact);
+        Assert.Equal((1L, new string('0', 64)), (record.Seq, record.PrevMac));
+        Assert.True(ExposureLogVerifier.VerifyFolder(TestKey.Value, Path.Combine(blocker, "audit")).Intact);
     }
 
     [Fact]
@@ -82,7 +82,7 @@ public class ExposureLogFailureTests
 
         using var folder = new TempFolder();
         var clock = Clock();
-        using var writer = new ExposureLogWriter(Options(folder.Path), clock);
+        using var writer = new ExposureLogWriter(TestKey.Value, Options(folder.Path), clock);
         var first = writer.Append(ExposureLogKinds.Snapshot, clock.GetUtcNow(), Cause(1), Figures(1));
         clock.Advance(TimeSpan.FromDays(1));
         var day2 = ExposureLogFiles.PathOf(folder.Path, Day2);
@@ -97,8 +97,8 @@ public class ExposureLogFailureTests
         File.Delete(day2);
         var second = writer.Append(ExposureLogKinds.Snapshot, clock.GetUtcNow(), Cause(2), Figures(2));
 
-        Assert.Equal((2L, first.Hash), (second.Seq, second.PrevHash));
-        Assert.True(ExposureLogVerifier.VerifyFolder(folder.Path).Intact);
+        Assert.Equal((2L, first.Mac), (second.Seq, second.PrevMac));
+        Assert.True(ExposureLogVerifier.VerifyFolder(TestKey.Value, folder.Path).Intact);
     }
 
     [Fact]
@@ -108,7 +108,7 @@ public class ExposureLogFailureTests
         var clock = Clock();
         var fail = false;
         var path = ExposureLogFiles.PathOf(folder.Path, Day1);
-        using (var writer = new ExposureLogWriter(Options(folder.Path), clock, s => new FaultyStream(s, () => fail)))
+        using (var writer = new ExposureLogWriter(TestKey.Value, Options(folder.Path), clock, s => new FaultyStream(s, () => fail)))
         {
             writer.Append(ExposureLogKinds.Snapshot, clock.GetUtcNow(), Cause(1), Figures(1));
             var second = writer.Append(ExposureLogKinds.Snapshot, clock.GetUtcNow(), Cause(2), Figures(2));
@@ -122,12 +122,12 @@ public class ExposureLogFailureTests
 
             fail = false;
             var third = writer.Append(ExposureLogKinds.Snapshot, clock.GetUtcNow(), Cause(3), Figures(3));
-            Assert.Equal((3L, second.Hash), (third.Seq, third.PrevHash));
+            Assert.Equal((3L, second.Mac), (third.Seq, third.PrevMac));
             writer.Append(ExposureLogKinds.Snapshot, clock.GetUtcNow(), Cause(4), Figures(4));
         }
 
         Assert.Equal(4, Lines(path).Length);
-        var result = ExposureLogVerifier.VerifyFile(path);
+        var result = ExposureLogVerifier.VerifyFile(TestKey.Value, path);
         Assert.True(result.Intact, string.Join("; ", result.Problems));
     }
 
@@ -138,7 +138,7 @@ public class ExposureLogFailureTests
         var clock = Clock();
         var fail = false;
         var day1 = ExposureLogFiles.PathOf(folder.Path, Day1);
-        using (var writer = new ExposureLogWriter(Options(folder.Path), clock, s => new FaultyStream(s, () => fail)))
+        using (var writer = new ExposureLogWriter(TestKey.Value, Options(folder.Path), clock, s => new FaultyStream(s, () => fail)))
         {
             writer.Append(ExposureLogKinds.Snapshot, clock.GetUtcNow(), Cause(1), Figures(1));
             fail = true;
@@ -150,7 +150,7 @@ public class ExposureLogFailureTests
         }
 
         Assert.Single(Lines(day1));
-        var result = ExposureLogVerifier.VerifyFolder(folder.Path);
+        var result = ExposureLogVerifier.VerifyFolder(TestKey.Value, folder.Path);
         Assert.True(result.Intact, string.Join("; ", result.Problems));
         Assert.Equal(2, result.Records);
     }

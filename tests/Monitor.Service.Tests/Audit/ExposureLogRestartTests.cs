@@ -14,7 +14,7 @@ public class ExposureLogRestartTests
 
     private static string WriteThree(TempFolder folder, FakeTimeProvider clock)
     {
-        using var writer = new ExposureLogWriter(Options(folder.Path), clock);
+        using var writer = new ExposureLogWriter(TestKey.Value, Options(folder.Path), clock);
         for (var i = 1; i <= 3; i++)
         {
             writer.Append(ExposureLogKinds.Snapshot, clock.GetUtcNow(), Cause(i), Figures(i));
@@ -35,10 +35,10 @@ public class ExposureLogRestartTests
             stream.Write(fragment);
         }
 
-        Assert.False(ExposureLogVerifier.VerifyFile(path).Intact); // torn before the restart
+        Assert.False(ExposureLogVerifier.VerifyFile(TestKey.Value, path).Intact); // torn before the restart
 
         ExposureLogRecord next;
-        using (var writer = new ExposureLogWriter(Options(folder.Path), clock))
+        using (var writer = new ExposureLogWriter(TestKey.Value, Options(folder.Path), clock))
         {
             Assert.Equal(3, writer.LastSeq);
             next = writer.Append(ExposureLogKinds.Snapshot, clock.GetUtcNow(), Cause(4), Figures(4));
@@ -52,7 +52,7 @@ public class ExposureLogRestartTests
         var payload = repair.RootElement.GetProperty("payload");
         Assert.Equal(fragment.Length, payload.GetProperty("removedBytes").GetInt32());
         Assert.Equal(fragment, Convert.FromBase64String(payload.GetProperty("removedBase64").GetString()!));
-        var result = ExposureLogVerifier.VerifyFile(path);
+        var result = ExposureLogVerifier.VerifyFile(TestKey.Value, path);
         Assert.True(result.Intact, string.Join("; ", result.Problems));
     }
 
@@ -65,7 +65,7 @@ public class ExposureLogRestartTests
         lines[2] = lines[2].Replace("\"status\":\"normal\"", "\"status\":\"breach\"", StringComparison.Ordinal);
         WriteLines(path, lines);
 
-        var ex = Assert.Throws<ExposureLogOpenException>(() => new ExposureLogWriter(Options(folder.Path), TimeProvider.System));
+        var ex = Assert.Throws<ExposureLogOpenException>(() => new ExposureLogWriter(TestKey.Value, Options(folder.Path), TimeProvider.System));
 
         Assert.Equal(path, ex.Path);
         Assert.Contains("seq 3", ex.Reason, StringComparison.Ordinal);
@@ -78,7 +78,7 @@ public class ExposureLogRestartTests
         var path = WriteThree(folder, Clock());
         File.AppendAllText(path, "not a record\n");
 
-        var ex = Assert.Throws<ExposureLogOpenException>(() => new ExposureLogWriter(Options(folder.Path), TimeProvider.System));
+        var ex = Assert.Throws<ExposureLogOpenException>(() => new ExposureLogWriter(TestKey.Value, Options(folder.Path), TimeProvider.System));
         Assert.Contains("unparsable", ex.Reason, StringComparison.Ordinal);
     }
 
@@ -90,7 +90,7 @@ public class ExposureLogRestartTests
         WriteThree(folder, clock);
         File.WriteAllBytes(ExposureLogFiles.PathOf(folder.Path, Day1.AddDays(1)), []);
 
-        using var writer = new ExposureLogWriter(Options(folder.Path), clock);
+        using var writer = new ExposureLogWriter(TestKey.Value, Options(folder.Path), clock);
 
         Assert.Equal(3, writer.LastSeq);
     }
@@ -104,12 +104,12 @@ public class ExposureLogRestartTests
         File.AppendAllText(path, "{\"v\":1,\"se");
         File.WriteAllBytes(ExposureLogFiles.PathOf(folder.Path, Day1.AddDays(1)), []);
 
-        using (var writer = new ExposureLogWriter(Options(folder.Path), clock))
+        using (var writer = new ExposureLogWriter(TestKey.Value, Options(folder.Path), clock))
         {
             Assert.Equal(5, writer.Append(ExposureLogKinds.Snapshot, clock.GetUtcNow(), Cause(4), Figures(4)).Seq);
         }
 
-        var result = ExposureLogVerifier.VerifyFolder(folder.Path);
+        var result = ExposureLogVerifier.VerifyFolder(TestKey.Value, folder.Path);
         Assert.True(result.Intact, string.Join("; ", result.Problems));
     }
 
@@ -120,7 +120,7 @@ public class ExposureLogRestartTests
         var clock = Clock();
         var path = WriteThree(folder, clock);
         clock.Advance(TimeSpan.FromDays(1));
-        using (var writer = new ExposureLogWriter(Options(folder.Path), clock))
+        using (var writer = new ExposureLogWriter(TestKey.Value, Options(folder.Path), clock))
         {
             writer.Append(ExposureLogKinds.Snapshot, clock.GetUtcNow(), Cause(4), Figures(4));
         }
@@ -128,7 +128,7 @@ public class ExposureLogRestartTests
         File.AppendAllText(path, "{\"v\":1,\"se");
         File.WriteAllText(ExposureLogFiles.PathOf(folder.Path, Day1.AddDays(1)), "{\"v\":1,"); // the newer file holds only a torn line
 
-        var ex = Assert.Throws<ExposureLogOpenException>(() => new ExposureLogWriter(Options(folder.Path), clock));
+        var ex = Assert.Throws<ExposureLogOpenException>(() => new ExposureLogWriter(TestKey.Value, Options(folder.Path), clock));
         Assert.Equal(path, ex.Path);
     }
 }

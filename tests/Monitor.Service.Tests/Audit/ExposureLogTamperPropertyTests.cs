@@ -16,7 +16,7 @@ public sealed class ExposureLogTamperPropertyTests : IDisposable
     public ExposureLogTamperPropertyTests()
     {
         var clock = Clock();
-        using (var writer = new ExposureLogWriter(Options(_folder.Path), clock))
+        using (var writer = new ExposureLogWriter(TestKey.Value, Options(_folder.Path), clock))
         {
             for (var i = 1; i <= 4; i++)
             {
@@ -42,7 +42,7 @@ public sealed class ExposureLogTamperPropertyTests : IDisposable
         File.WriteAllBytes(_path, tampered);
         try
         {
-            return !ExposureLogVerifier.VerifyFile(_path).Intact;
+            return !ExposureLogVerifier.VerifyFile(TestKey.Value, _path).Intact;
         }
         finally
         {
@@ -51,7 +51,7 @@ public sealed class ExposureLogTamperPropertyTests : IDisposable
     }
 
     [Fact]
-    public void The_untouched_file_is_intact() => Assert.True(ExposureLogVerifier.VerifyFile(_path).Intact);
+    public void The_untouched_file_is_intact() => Assert.True(ExposureLogVerifier.VerifyFile(TestKey.Value, _path).Intact);
 
     public void Dispose() => _folder.Dispose();
 }

@@ -1,4 +1,3 @@
-using System.Security.Cryptography;
 using System.Text;
 using Monitor.Service.Audit;
 using Monitor.Service.Tests.Support;
@@ -15,7 +14,7 @@ public class ExposureLogVerifierTests
     private static (string Day1File, string Day2File) WriteLog(TempFolder folder, bool secondDay = false)
     {
         var clock = Clock();
-        using var writer = new ExposureLogWriter(Options(folder.Path), clock);
+        using var writer = new ExposureLogWriter(TestKey.Value, Options(folder.Path), clock);
         for (var i = 1; i <= 6; i++)
         {
             writer.Append(ExposureLogKinds.Snapshot, clock.GetUtcNow(), Cause(i), Figures(i));
@@ -44,24 +43,24 @@ public class ExposureLogVerifierTests
         lines[2] = lines[2].Replace("\"dv01\":-1253.5", "\"dv01\":-253.5", StringComparison.Ordinal);
         WriteLines(path, lines);
 
-        var result = ExposureLogVerifier.VerifyFile(path);
+        var result = ExposureLogVerifier.VerifyFile(TestKey.Value, path);
 
         Assert.False(result.Intact);
         var problem = Assert.Single(result.Problems);
-        Assert.Equal((3, 3L, ExposureLogProblemKind.HashMismatch), (problem.LineNumber, problem.Seq!.Value, problem.Kind));
+        Assert.Equal((3, 3L, ExposureLogProblemKind.MacMismatch), (problem.LineNumber, problem.Seq!.Value, problem.Kind));
         Assert.Equal("exposures-2026-12-01.jsonl", problem.File);
     }
 
     [Fact]
-    public void A_changed_figure_with_its_hash_recomputed_breaks_the_link_of_the_next_line()
+    public void A_changed_figure_with_its_mac_recomputed_under_a_stolen_key_breaks_the_link_of_the_next_line()
     {
         using var folder = new TempFolder();
         var (path, _) = WriteLog(folder);
         var lines = Lines(path);
-        lines[2] = Rehash(lines[2].Replace("\"dv01\":-1253.5", "\"dv01\":-253.5", StringComparison.Ordinal));
+        lines[2] = Remac(lines[2].Replace("\"dv01\":-1253.5", "\"dv01\":-253.5", StringComparison.Ordinal));
         WriteLines(path, lines);
 
-        var problem = Assert.Single(ExposureLogVerifier.VerifyFile(path).Problems);
+        var problem = Assert.Single(ExposureLogVerifier.VerifyFile(TestKey.Value, path).Problems);
 
         Assert.Equal((4, ExposureLogProblemKind.BrokenLink), (problem.LineNumber, problem.Kind));
     }
@@ -73,7 +72,7 @@ public class ExposureLogVerifierTests
         var (path, _) = WriteLog(folder);
         WriteLines(path, Lines(path).Where((_, i) => i != 2));
 
-        var result = ExposureLogVerifier.VerifyFile(path);
+        var result = ExposureLogVerifier.VerifyFile(TestKey.Value, path);
 
         Assert.Equal(5, result.Records);
         Assert.All(result.Problems, p => Assert.Equal((3, 4L), (p.LineNumber, p.Seq!.Value)));
@@ -91,12 +90,12 @@ public class ExposureLogVerifierTests
         (lines[2], lines[3]) = (lines[3], lines[2]);
         WriteLines(path, lines);
 
-        var result = ExposureLogVerifier.VerifyFile(path);
+        var result = ExposureLogVerifier.VerifyFile(TestKey.Value, path);
 
         Assert.False(result.Intact);
         Assert.Contains(result.Problems, p => p.LineNumber == 3 && p.Kind == ExposureLogProblemKind.BrokenLink);
         Assert.Contains(result.Problems, p => p.LineNumber == 4 && p.Kind == ExposureLogProblemKind.SequenceGap);
-        Assert.DoesNotContain(result.Problems, p => p.Kind == ExposureLogProblemKind.HashMismatch);
+        Assert.DoesNotContain(result.Problems, p => p.Kind == ExposureLogProblemKind.MacMismatch);
     }
 
     [Fact]
@@ -106,7 +105,7 @@ public class ExposureLogVerifierTests
         var (path, _) = WriteLog(folder);
         WriteLines(path, Lines(path).Skip(1));
 
-        var result = ExposureLogVerifier.VerifyFolder(folder.Path);
+        var result = ExposureLogVerifier.VerifyFolder(TestKey.Value, folder.Path);
 
         Assert.Contains(result.Problems, p => p.LineNumber == 1 && p.Kind == ExposureLogProblemKind.SequenceGap);
         Assert.Contains(result.Problems, p => p.LineNumber == 1 && p.Kind == ExposureLogProblemKind.BrokenLink);
@@ -117,10 +116,10 @@ public class ExposureLogVerifierTests
     {
         using var folder = new TempFolder();
         var (_, day2) = WriteLog(folder, secondDay: true);
-        Assert.True(ExposureLogVerifier.VerifyDay(folder.Path, Day2).Intact);
+        Assert.True(ExposureLogVerifier.VerifyDay(TestKey.Value, folder.Path, Day2).Intact);
         WriteLines(day2, Lines(day2).Skip(1));
 
-        var result = ExposureLogVerifier.VerifyDay(folder.Path, Day2);
+        var result = ExposureLogVerifier.VerifyDay(TestKey.Value, folder.Path, Day2);
 
         Assert.Contains(result.Problems, p => p.LineNumber == 1 && p.Seq == 8 && p.Kind == ExposureLogProblemKind.SequenceGap);
         Assert.Contains(result.Problems, p => p.LineNumber == 1 && p.Kind == ExposureLogProblemKind.BrokenLink && p.Detail.Contains("exposures-2026-12-01.jsonl", StringComparison.Ordinal));
@@ -132,8 +131,8 @@ public class ExposureLogVerifierTests
         using var folder = new TempFolder();
         WriteLog(folder, secondDay: true);
 
-        var onlyDay2 = ExposureLogVerifier.VerifyFolder(folder.Path, from: Day2, to: Day2);
-        var both = ExposureLogVerifier.VerifyFolder(folder.Path, from: Day1, to: Day2);
+        var onlyDay2 = ExposureLogVerifier.VerifyFolder(TestKey.Value, folder.Path, from: Day2, to: Day2);
+        var both = ExposureLogVerifier.VerifyFolder(TestKey.Value, folder.Path, from: Day1, to: Day2);
 
         Assert.True(onlyDay2.Intact, string.Join("; ", onlyDay2.Problems));
         Assert.Equal((3, 7L, 9L), (onlyDay2.Records, onlyDay2.FirstSeq!.Value, onlyDay2.LastSeq!.Value));
@@ -150,18 +149,18 @@ public class ExposureLogVerifierTests
         lines.Insert(1, "this is not a record");
         File.WriteAllText(path, string.Concat(lines.Select(l => l + "\n")) + "{\"v\":1,\"seq\":7,\"ki");
 
-        var result = ExposureLogVerifier.VerifyFile(path);
+        var result = ExposureLogVerifier.VerifyFile(TestKey.Value, path);
 
         Assert.Contains(result.Problems, p => p.LineNumber == 2 && p.Kind == ExposureLogProblemKind.Unparsable);
         Assert.Contains(result.Problems, p => p.LineNumber == 8 && p.Kind == ExposureLogProblemKind.TornLine);
-        Assert.DoesNotContain(result.Problems, p => p.Kind is ExposureLogProblemKind.BrokenLink or ExposureLogProblemKind.HashMismatch);
+        Assert.DoesNotContain(result.Problems, p => p.Kind is ExposureLogProblemKind.BrokenLink or ExposureLogProblemKind.MacMismatch);
     }
 
     [Fact]
     public void A_missing_day_is_reported()
     {
         using var folder = new TempFolder();
-        var result = ExposureLogVerifier.VerifyDay(folder.Path, Day1);
+        var result = ExposureLogVerifier.VerifyDay(TestKey.Value, folder.Path, Day1);
         Assert.False(result.Intact);
         Assert.Equal(ExposureLogProblemKind.MissingFile, Assert.Single(result.Problems).Kind);
     }
@@ -170,7 +169,7 @@ public class ExposureLogVerifierTests
     public void A_missing_folder_is_reported()
     {
         using var folder = new TempFolder();
-        var result = ExposureLogVerifier.VerifyFolder(folder.Combine("nowhere"));
+        var result = ExposureLogVerifier.VerifyFolder(TestKey.Value, folder.Combine("nowhere"));
         Assert.False(result.Intact);
         Assert.Equal(ExposureLogProblemKind.MissingFile, Assert.Single(result.Problems).Kind);
     }
@@ -180,21 +179,21 @@ public class ExposureLogVerifierTests
     {
         using var folder = new TempFolder();
         var clock = Clock();
-        using var writer = new ExposureLogWriter(Options(folder.Path), clock);
+        using var writer = new ExposureLogWriter(TestKey.Value, Options(folder.Path), clock);
         writer.Append(ExposureLogKinds.Snapshot, clock.GetUtcNow(), Cause(1), Figures(1));
         writer.Append(ExposureLogKinds.Snapshot, clock.GetUtcNow(), Cause(2), Figures(2));
 
-        var result = ExposureLogVerifier.VerifyDay(folder.Path, Day1);
+        var result = ExposureLogVerifier.VerifyDay(TestKey.Value, folder.Path, Day1);
 
         Assert.True(result.Intact, string.Join("; ", result.Problems));
         Assert.Equal(2, result.Records);
     }
 
-    /// <summary>What a forger would do: recompute the hash of a changed line (SHA-256 of the line without its hash member).</summary>
-    private static string Rehash(string line)
+    /// <summary>What a forger with the key would do: recompute the mac of a changed line (HMAC-SHA256 of the line without its mac member).</summary>
+    private static string Remac(string line)
     {
-        var cut = line.LastIndexOf(",\"hash\":\"", StringComparison.Ordinal);
+        var cut = line.LastIndexOf(",\"mac\":\"", StringComparison.Ordinal);
         var canonical = line[..cut] + "}";
-        return line[..cut] + ",\"hash\":\"" + Convert.ToHexStringLower(SHA256.HashData(Encoding.UTF8.GetBytes(canonical))) + "\"}";
+        return line[..cut] + ",\"mac\":\"" + TestKey.Value.Mac(Encoding.UTF8.GetBytes(canonical)) + "\"}";
     }
 }

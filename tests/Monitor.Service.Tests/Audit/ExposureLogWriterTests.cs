@@ -17,7 +17,7 @@ public class ExposureLogWriterTests
         using var folder = new TempFolder();
         var clock = Clock();
         var records = new List<ExposureLogRecord>();
-        using (var writer = new ExposureLogWriter(Options(folder.Path), clock))
+        using (var writer = new ExposureLogWriter(TestKey.Value, Options(folder.Path), clock))
         {
             for (var i = 1; i <= 10; i++)
             {
@@ -27,10 +27,10 @@ public class ExposureLogWriterTests
         }
 
         Assert.Equal(Enumerable.Range(1, 10).Select(i => (long)i), records.Select(r => r.Seq));
-        Assert.Equal(new string('0', 64), records[0].PrevHash);
+        Assert.Equal(new string('0', 64), records[0].PrevMac);
         for (var i = 1; i < records.Count; i++)
         {
-            Assert.Equal(records[i - 1].Hash, records[i].PrevHash);
+            Assert.Equal(records[i - 1].Mac, records[i].PrevMac);
         }
 
         var day1Lines = Lines(folder.Combine("exposures-2026-12-01.jsonl"));
@@ -38,14 +38,14 @@ public class ExposureLogWriterTests
         Assert.Equal(records.Take(5).Select(r => r.Line), day1Lines);
         Assert.Equal(records.Skip(5).Select(r => r.Line), day2Lines);
 
-        var all = ExposureLogVerifier.VerifyFolder(folder.Path);
+        var all = ExposureLogVerifier.VerifyFolder(TestKey.Value, folder.Path);
         Assert.True(all.Intact, string.Join("; ", all.Problems));
         Assert.Equal(10, all.Records);
         Assert.Equal(1, all.FirstSeq);
         Assert.Equal(10, all.LastSeq);
-        Assert.Equal(records[^1].Hash, all.LastHash);
+        Assert.Equal(records[^1].Mac, all.LastMac);
 
-        var second = ExposureLogVerifier.VerifyDay(folder.Path, Day2);
+        var second = ExposureLogVerifier.VerifyDay(TestKey.Value, folder.Path, Day2);
         Assert.True(second.Intact, string.Join("; ", second.Problems));
         Assert.Equal(6, second.FirstSeq);
     }
@@ -58,7 +58,7 @@ public class ExposureLogWriterTests
         var options = Options(folder.Path);
         // 03:00 UTC = 22:00 the day before in New York (EST, UTC-5), before a 23:00 roll.
         var roll = new BusinessDayRoll(new TimeOnly(23, 0), TimeZoneInfo.FindSystemTimeZoneById("America/New_York"));
-        using (var writer = new ExposureLogWriter(options, clock, roll))
+        using (var writer = new ExposureLogWriter(TestKey.Value, options, clock, roll))
         {
             writer.Append(ExposureLogKinds.DayClosed, clock.Now, Cause(1), Figures(1));
         }
@@ -72,7 +72,7 @@ public class ExposureLogWriterTests
     {
         using var folder = new TempFolder();
         var clock = new ManualClock(new DateTimeOffset(2026, 12, 2, 0, 0, 1, TimeSpan.Zero));
-        using (var writer = new ExposureLogWriter(Options(folder.Path), clock))
+        using (var writer = new ExposureLogWriter(TestKey.Value, Options(folder.Path), clock))
         {
             writer.Append(ExposureLogKinds.Snapshot, clock.Now, Cause(1), Figures(1));
             clock.Now = clock.Now.AddSeconds(-2);
@@ -81,7 +81,7 @@ public class ExposureLogWriterTests
 
         Assert.False(File.Exists(ExposureLogFiles.PathOf(folder.Path, Day1)));
         Assert.Equal(2, Lines(ExposureLogFiles.PathOf(folder.Path, Day2)).Length);
-        Assert.True(ExposureLogVerifier.VerifyFolder(folder.Path).Intact);
+        Assert.True(ExposureLogVerifier.VerifyFolder(TestKey.Value, folder.Path).Intact);
     }
 
     [Fact]
@@ -90,23 +90,23 @@ public class ExposureLogWriterTests
         using var folder = new TempFolder();
         var clock = Clock();
         ExposureLogRecord last;
-        using (var first = new ExposureLogWriter(Options(folder.Path), clock))
+        using (var first = new ExposureLogWriter(TestKey.Value, Options(folder.Path), clock))
         {
             first.Append(ExposureLogKinds.Snapshot, clock.GetUtcNow(), Cause(1), Figures(1));
             last = first.Append(ExposureLogKinds.Snapshot, clock.GetUtcNow(), Cause(2), Figures(2));
         }
 
         clock.Advance(TimeSpan.FromMinutes(5));
-        using (var second = new ExposureLogWriter(Options(folder.Path), clock))
+        using (var second = new ExposureLogWriter(TestKey.Value, Options(folder.Path), clock))
         {
             Assert.Equal(2, second.LastSeq);
-            Assert.Equal(last.Hash, second.LastHash);
+            Assert.Equal(last.Mac, second.LastMac);
             var next = second.Append(ExposureLogKinds.TradeApplied, clock.GetUtcNow(), Cause(3), Figures(3));
             Assert.Equal(3, next.Seq);
-            Assert.Equal(last.Hash, next.PrevHash);
+            Assert.Equal(last.Mac, next.PrevMac);
         }
 
-        var result = ExposureLogVerifier.VerifyFolder(folder.Path);
+        var result = ExposureLogVerifier.VerifyFolder(TestKey.Value, folder.Path);
         Assert.True(result.Intact, string.Join("; ", result.Problems));
         Assert.Equal(3, result.Records);
     }
@@ -117,20 +117,20 @@ public class ExposureLogWriterTests
         using var folder = new TempFolder();
         var clock = Clock();
         ExposureLogRecord last;
-        using (var first = new ExposureLogWriter(Options(folder.Path), clock))
+        using (var first = new ExposureLogWriter(TestKey.Value, Options(folder.Path), clock))
         {
             last = first.Append(ExposureLogKinds.DayClosed, clock.GetUtcNow(), Cause(1), Figures(1));
         }
 
         clock.Advance(TimeSpan.FromDays(3)); // a weekend in between: the previous file is not yesterday's
-        using (var second = new ExposureLogWriter(Options(folder.Path), clock))
+        using (var second = new ExposureLogWriter(TestKey.Value, Options(folder.Path), clock))
         {
             var next = second.Append(ExposureLogKinds.Snapshot, clock.GetUtcNow(), Cause(2), Figures(2));
             Assert.Equal(2, next.Seq);
-            Assert.Equal(last.Hash, next.PrevHash);
+            Assert.Equal(last.Mac, next.PrevMac);
         }
 
-        var day4 = ExposureLogVerifier.VerifyDay(folder.Path, new DateOnly(2026, 12, 4));
+        var day4 = ExposureLogVerifier.VerifyDay(TestKey.Value, folder.Path, new DateOnly(2026, 12, 4));
         Assert.True(day4.Intact, string.Join("; ", day4.Problems));
     }
 
@@ -142,7 +142,7 @@ public class ExposureLogWriterTests
         const int threads = 4;
         const int perThread = 50;
         var seqs = new System.Collections.Concurrent.ConcurrentBag<long>();
-        using (var writer = new ExposureLogWriter(Options(folder.Path), clock))
+        using (var writer = new ExposureLogWriter(TestKey.Value, Options(folder.Path), clock))
         {
             Parallel.For(0, threads, new ParallelOptions { MaxDegreeOfParallelism = threads }, t =>
             {
@@ -154,7 +154,7 @@ public class ExposureLogWriterTests
         }
 
         Assert.Equal(Enumerable.Range(1, threads * perThread).Select(i => (long)i), seqs.Order());
-        var result = ExposureLogVerifier.VerifyFolder(folder.Path);
+        var result = ExposureLogVerifier.VerifyFolder(TestKey.Value, folder.Path);
         Assert.True(result.Intact, string.Join("; ", result.Problems));
         Assert.Equal(threads * perThread, result.Records);
     }
@@ -164,7 +164,7 @@ public class ExposureLogWriterTests
     {
         using var folder = new TempFolder();
         var clock = Clock();
-        using var writer = new ExposureLogWriter(Options(folder.Path), clock);
+        using var writer = new ExposureLogWriter(TestKey.Value, Options(folder.Path), clock);
         var record = writer.Append(
             ExposureLogKinds.LimitsReloaded, clock.GetUtcNow(), new ExposureLogCause(null, "file-watch"),
             new Dictionary<string, object?> { ["file"] = "limits.json", ["limits"] = 12, ["warning"] = 0.8 });
@@ -177,7 +177,7 @@ public class ExposureLogWriterTests
     {
         using var folder = new TempFolder();
         var clock = Clock();
-        using var writer = new ExposureLogWriter(Options(folder.Path), clock);
+        using var writer = new ExposureLogWriter(TestKey.Value, Options(folder.Path), clock);
         var now = clock.GetUtcNow();
 
         Assert.Contains("kind", Assert.Throws<ArgumentException>(() => writer.Append("Snapshot", now, Cause(1), Figures(1))).Message, StringComparison.Ordinal);
@@ -193,7 +193,7 @@ public class ExposureLogWriterTests
     [Fact]
     public void Bad_options_stop_the_start_with_the_key_named()
     {
-        var ex = Assert.Throws<ArgumentException>(() => new ExposureLogWriter(new ExposureLogOptions { Folder = " " }, TimeProvider.System));
+        var ex = Assert.Throws<ArgumentException>(() => new ExposureLogWriter(TestKey.Value, new ExposureLogOptions { Folder = " " }, TimeProvider.System));
         Assert.Contains("ExposureLog:Folder", ex.Message, StringComparison.Ordinal);
     }
 
@@ -204,13 +204,13 @@ public class ExposureLogWriterTests
         var clock = Clock();
         var options = Options(folder.Path);
         options.FlushToDisk = true;
-        using (var writer = new ExposureLogWriter(options, clock))
+        using (var writer = new ExposureLogWriter(TestKey.Value, options, clock))
         {
             writer.Append(ExposureLogKinds.Snapshot, clock.GetUtcNow(), Cause(1), Figures(1));
             writer.Append(ExposureLogKinds.Snapshot, clock.GetUtcNow(), Cause(2), Figures(2));
         }
 
-        Assert.True(ExposureLogVerifier.VerifyFolder(folder.Path).Intact);
+        Assert.True(ExposureLogVerifier.VerifyFolder(TestKey.Value, folder.Path).Intact);
         Assert.Equal(2, Lines(ExposureLogFiles.PathOf(folder.Path, Day1)).Length);
     }
 }

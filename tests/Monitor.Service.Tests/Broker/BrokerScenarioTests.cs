@@ -11,7 +11,11 @@ using Monitor.Service.Engine;
 using Monitor.Service.Hosting;
 using Monitor.Service.Pipeline;
 using Monitor.Service.Tests.Support;
+using Monitor.Service.Consumers;
+using Monitor.Service.Messaging;
 using RabbitMQ.Client;
+using Serilog;
+using Serilog.Events;
 
 namespace Monitor.Service.Tests.Broker;
 
@@ -75,7 +79,7 @@ public sealed class BrokerScenarioTests : IDisposable
                 Assert.Equal(4_000_000, await pipeline.ReadAsync(e => e.Books["RATES-CURVE"].Positions["VGB-2051-11"]));
                 await StopService(host);
             }
-            var log = ExposureLogVerifier.VerifyFolder(_folder.Combine("exposure-log"));
+            var log = ExposureLogVerifier.VerifyFolder(TestKey.Value, _folder.Combine("exposure-log"));
             Assert.True(log.Intact, string.Join("; ", log.Problems));
             await DeleteQueues(channel);
         }
@@ -86,7 +90,7 @@ public sealed class BrokerScenarioTests : IDisposable
     }
 
     [BrokerFact]
-    public async Task Malformed_and_refused_messages_land_in_the_error_queue_with_the_reason()
+    public async Task Malformed_and_refused_messages_land_in_the_error_queue_with_the_reason_and_one_warning_line()
     {
         var broker = new BrokerEndpoint();
         await broker.InitializeAsync();
@@ -95,7 +99,11 @@ public sealed class BrokerScenarioTests : IDisposable
             await using var connection = await Connect(broker);
             await using var channel = await connection.CreateChannelAsync();
             await DeleteQueues(channel);
-            var (host, _) = await StartService(broker, TestMarket.Data("limits.json"));
+            var everything = new CapturedLogEvents();
+            var kept = new CapturedLogEvents();
+            var (host, _) = await StartService(broker, TestMarket.Data("limits.json"), logger => logger
+                .WriteTo.Sink(everything)
+                .WriteTo.Logger(l => l.Filter.With(new RefusalLogEvents()).WriteTo.Sink(kept)));
             using (host)
             {
                 var pipeline = host.Services.GetRequiredService<RiskPipeline>();
@@ -103,15 +111,34 @@ public sealed class BrokerScenarioTests : IDisposable
                 await PublishRaw(channel, InboundEndpoints.Trades, "{\"tradeId\": \"M-1\", \"version\": 1, \"action\": ");
                 var malformed = await GetError(connection, InboundEndpoints.Trades + "_error");
                 Assert.Contains("M-1", Encoding.UTF8.GetString(malformed.Body.Span), StringComparison.Ordinal);
-                Assert.NotNull(Header(malformed, "MT-Reason") ?? Header(malformed, "MT-Fault-Message"));
+                Assert.StartsWith("action: is not valid JSON", Header(malformed, "MT-Fault-Message"), StringComparison.Ordinal);
 
                 await PublishJson(channel, InboundEndpoints.Trades, Trade("U-1", "NO-SUCH-BOOK", "VGB-2034-11", 1_000_000));
                 var refused = await GetError(connection, InboundEndpoints.Trades + "_error");
                 Assert.Contains("book: 'NO-SUCH-BOOK'", Header(refused, "MT-Fault-Message"), StringComparison.Ordinal);
+
+                // Issue 11: a type error names the wire field in words, not the JSON reader's sentence; so does a NaN literal.
+                var mistyped = JsonSerializer.Serialize(Trade("T-1", "RATES-CURVE", "VGB-2034-11", 1_000_000), Json).Replace("1000000", "\"abc\"", StringComparison.Ordinal);
+                await PublishRaw(channel, InboundEndpoints.Trades, mistyped);
+                Assert.Equal("faceAmount: '\"abc\"' must be a number, e.g. 99.5.", Header(await GetError(connection, InboundEndpoints.Trades + "_error"), "MT-Fault-Message"));
+                await PublishRaw(channel, InboundEndpoints.Trades, mistyped.Replace("\"abc\"", "NaN", StringComparison.Ordinal));
+                Assert.StartsWith("faceAmount: is not valid JSON", Header(await GetError(connection, InboundEndpoints.Trades + "_error"), "MT-Fault-Message"), StringComparison.Ordinal);
                 Assert.Equal(before, await pipeline.ReadAsync(EngineState.Of));
                 await StopService(host);
             }
             await DeleteQueues(channel);
+
+            // One Warning line per refused message, naming the field; nothing at Error once MassTransit's own fault lines are dropped.
+            var refusals = kept.Events.Where(e => e.Properties.TryGetValue("SourceContext", out var c) && c.ToString() == $"\"{RefusalLogEvents.Category}\"").ToArray();
+            Assert.Equal(["action", "book", "faceAmount", "faceAmount"], refusals.Select(e => ((ScalarValue)e.Properties["Field"]).Value as string));
+            Assert.All(refusals, e => Assert.Equal(LogEventLevel.Warning, e.Level));
+            Assert.All(refusals, e => Assert.Null(e.Exception));
+            Assert.All(refusals, e => Assert.True(e.Properties.ContainsKey("MessageId")));
+            var errors = kept.Events.Where(e => e.Level >= LogEventLevel.Error).Select(e => $"{e.Properties.GetValueOrDefault("SourceContext")} {e.RenderMessage()} {e.Exception?.GetType().Name}: {e.Exception?.Message}").ToArray();
+            Assert.True(errors.Length == 0, string.Join("\n", errors));
+            Assert.DoesNotContain(kept.Events, e => e.Exception is MessageRejectedException);
+            // The filter has work to do: MassTransit itself logs each refusal with its exception.
+            Assert.Contains(everything.Events, RefusalLogEvents.IsMassTransitRefusal);
         }
         finally
         {
@@ -119,7 +146,7 @@ public sealed class BrokerScenarioTests : IDisposable
         }
     }
 
-    private async Task<(IHost Host, RecordedEvents Events)> StartService(BrokerEndpoint broker, string limitsFile)
+    private async Task<(IHost Host, RecordedEvents Events)> StartService(BrokerEndpoint broker, string limitsFile, Action<LoggerConfiguration>? logging = null)
     {
         File.WriteAllText(_folder.Combine("broker-user"), broker.User);
         File.WriteAllText(_folder.Combine("broker-password"), broker.Password);
@@ -135,6 +162,14 @@ public sealed class BrokerScenarioTests : IDisposable
         var builder = Host.CreateEmptyApplicationBuilder(new HostApplicationBuilderSettings());
         var events = new RecordedEvents();
         builder.Services.AddSingleton(events);
+        if (logging is not null)
+        {
+            // As config/service.json: the health check service's own lines are silenced (the publisher logs each change).
+            var logger = new LoggerConfiguration().MinimumLevel.Information()
+                .MinimumLevel.Override("Microsoft.Extensions.Diagnostics.HealthChecks", LogEventLevel.Fatal);
+            logging(logger);
+            builder.Services.AddSerilog(logger.CreateLogger(), dispose: true);
+        }
         builder.Services.AddSingleton<TimeProvider>(new ManualClock(TestMarket.Now));
         var recorderQueue = "monitor-test-events-" + Guid.NewGuid().ToString("N")[..8];
         builder.Services.AddMonitorService(configuration, bus => bus.AddConsumer<EventRecorder>().Endpoint(e =>

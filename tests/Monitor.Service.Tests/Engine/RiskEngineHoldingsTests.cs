@@ -143,7 +143,7 @@ public sealed class RiskEngineHoldingsTests : IDisposable
     }
 
     [Fact]
-    public void A_book_holding_a_group_without_a_curve_waits_and_a_matured_bond_does_not_make_it_wait()
+    public void A_book_holding_a_group_without_a_curve_is_valued_provisionally_and_a_matured_bond_does_not_make_it_so()
     {
         var engine = OpenedEngine(); // UTIL-A has 3 quotes, fewer than the 4 its gate asks for: no curve
         Assert.Null(engine.Curves["UTIL-A"].Curve);
@@ -156,7 +156,9 @@ public sealed class RiskEngineHoldingsTests : IDisposable
         var result = engine.RevalueAll(TestMarket.Now);
 
         Assert.Equal(["B1"], result.BooksAwaitingCurves);
-        Assert.Same(lastFigures, engine.Books["B1"].Exposures); // kept until its curve comes
+        Assert.NotSame(lastFigures, engine.Books["B1"].Exposures); // valued on a stand-in spread, never left out
+        Assert.Contains("QFU-2029-03", Assert.Single(engine.Books["B1"].ProvisionalReasons), StringComparison.Ordinal);
+        Assert.Empty(engine.Books["B2"].ProvisionalReasons);
         Assert.Equal([CurveKey.Government], engine.Books["B2"].CurveKeys); // the matured bond has no flows left to value
         Assert.Equal(1_000_000, engine.Books["B2"].Positions["OLD-2026-03"]);
         AssertMatchesReference(engine);
@@ -323,7 +325,7 @@ public sealed class RiskEngineHoldingsTests : IDisposable
         {
             if (book.CurveKeys.Any(k => !CurveKey.IsGovernment(k) && !spreads.ContainsKey(k)))
             {
-                continue; // waits for a curve (checked where a test expects it)
+                continue; // valued on stand-in spreads (RiskEngineProvisionalTests)
             }
             valued++;
             var dates = new CashFlowDateIndex();

@@ -1,6 +1,7 @@
 using Monitor.Analytics.Pricing;
 using Monitor.Limits;
 using Monitor.Service.Engine;
+using Monitor.Service.Hosting;
 using Monitor.Service.Tests.Support;
 
 namespace Monitor.Service.Tests.Engine;
@@ -43,10 +44,11 @@ public sealed class RiskEngineMarketTests
     }
 
     [Fact]
-    public void A_spread_group_with_too_few_bonds_is_rejected_without_stopping_the_other_curves()
+    public void A_spread_group_with_too_few_bonds_waits_without_a_fit_and_without_stopping_the_other_curves()
     {
-        // UTIL-A has three bonds in the example market; a Nelson-Siegel spread curve needs four (fact of the model:
-        // four parameters). The rejection is reported; the government and INDUSTRIAL-BBB curves are still published.
+        // UTIL-A has three bonds in the example market, below the spread gate's minimum of four (SpreadMinQuotes; a
+        // Nelson-Siegel curve has four parameters). Issue 11: no fit is tried, so no rejection is reported; the
+        // government and INDUSTRIAL-BBB curves are still fitted, and the book holding UTIL-A waits for its curve.
         var engine = TestMarket.Engine();
         foreach (var quote in TestMarket.OpenQuotes())
         {
@@ -54,11 +56,21 @@ public sealed class RiskEngineMarketTests
         }
         var result = engine.RefitDirtyCurves(TestMarket.Now);
 
-        var util = Assert.Single(result.Curves, c => c.CurveKey == "UTIL-A");
-        Assert.False(util.Accepted);
-        Assert.Contains(util.Verdict.Reasons, r => r.Contains("4", StringComparison.Ordinal));
+        Assert.DoesNotContain(result.Curves, c => c.CurveKey == "UTIL-A");
         Assert.True(Assert.Single(result.Curves, c => c.CurveKey == "INDUSTRIAL-BBB").Accepted);
         Assert.Contains("CREDIT-IG", result.BooksAwaitingCurves);
+        Assert.Empty(engine.DirtyCurves());
+    }
+
+    [Fact]
+    public void The_first_quote_of_the_day_tries_no_fit()
+    {
+        var engine = TestMarket.Engine();
+        engine.AcceptQuote(TestMarket.OpenQuotes().First(q => q.InstrumentId.StartsWith("VGB", StringComparison.Ordinal)), TestMarket.Now);
+
+        var result = engine.RefitDirtyCurves(TestMarket.Now);
+
+        Assert.Empty(result.Curves);
         Assert.Empty(engine.DirtyCurves());
     }
 
@@ -92,9 +104,11 @@ public sealed class RiskEngineMarketTests
     }
 
     [Fact]
-    public void Par_yields_fit_the_government_curve_and_revalue_books()
+    public void Par_yields_configured_as_the_valuation_source_fit_the_government_curve_and_revalue_books()
     {
-        var engine = TestMarket.Engine();
+        var options = TestMarket.Options();
+        options.ValuationCurveSource = ValuationCurveSource.ParYields;
+        var engine = EngineFactory.Create(options, new ManualClock(TestMarket.Now));
         var points = Monitor.Files.ParYieldFile.Read(TestMarket.Data("par-yields.csv")).Single().Points
             .Select(p => (Monitor.Analytics.Fitting.ParYieldCurveFitter.TenorLabel(p.TenorYears), p.ParYield!.Value)).ToArray();
 
@@ -106,6 +120,37 @@ public sealed class RiskEngineMarketTests
         // semiannual; Fabozzi, Bond Markets, 8th ed., ch. 5) to within the gate's 5 bp RMSE.
         Assert.Equal(0.03958, Monitor.Analytics.Curves.ParYield.Compute(curve, 10.0), 0.0005);
         Assert.Contains(result.Books, b => b.Book == "RATES-CORE");
+
+        // Government bond quotes then fit their own reference curve: the valuation curve does not flip back to them.
+        foreach (var quote in TestMarket.OpenQuotes().Where(q => q.InstrumentId.StartsWith("VGB", StringComparison.Ordinal)))
+        {
+            engine.AcceptQuote(quote, TestMarket.Now);
+        }
+        var bonds = engine.RefitDirtyCurves(TestMarket.Now);
+        Assert.Equal(CurveKeyLabel.GovernmentBonds, Assert.Single(bonds.Curves, c => c.Accepted).CurveKey);
+        Assert.Same(curve, engine.Curves[CurveKeyLabel.KeyOf(CurveKeyLabel.Government)].Curve);
+        Assert.Empty(bonds.Books);
+    }
+
+    [Fact]
+    public void Par_yields_fit_their_own_reference_curve_and_leave_the_bond_fitted_valuation_curve_alone()
+    {
+        var engine = TestMarket.OpenedEngine();
+        var government = engine.Curves[CurveKeyLabel.KeyOf(CurveKeyLabel.Government)];
+        var (fitted, version) = (government.Current, government.Version);
+        var points = Monitor.Files.ParYieldFile.Read(TestMarket.Data("par-yields.csv")).Single().Points
+            .Select(p => (Monitor.Analytics.Fitting.ParYieldCurveFitter.TenorLabel(p.TenorYears), p.ParYield!.Value)).ToArray();
+
+        var result = engine.ApplyParYields(CurveKeyLabel.Government, TestMarket.Now, points, TestMarket.Now);
+
+        var outcome = Assert.Single(result.Curves);
+        Assert.True(outcome.Accepted);
+        Assert.Equal(CurveKeyLabel.GovernmentPar, outcome.CurveKey);
+        Assert.Equal(1, engine.Reference.Version);
+        Assert.Same(fitted, government.Current); // the valuation curve did not flip to the par-yield fit
+        Assert.Equal(version, government.Version);
+        Assert.Empty(result.Books);
+        Assert.DoesNotContain(CurveKeyLabel.GovernmentPar, engine.CurvesInUse(), StringComparison.Ordinal);
     }
 
     [Theory]

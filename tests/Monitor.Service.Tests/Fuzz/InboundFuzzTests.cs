@@ -26,8 +26,8 @@ public sealed class InboundFuzzTests(ITestOutputHelper output)
     private static readonly HashSet<string> WireFields = new(StringComparer.Ordinal)
     {
         "tradeId", "version", "action", "book", "instrumentId", "faceAmount", "cleanPrice", "tradeTime",
-        "quoteId", "bidCleanPrice", "askCleanPrice", "midCleanPrice", "yield", "quoteTime", "source", "mid",
-        "issuer", "spreadGroup", "currency", "couponRate", "frequency", "dayCount", "issueDate", "firstCouponDate", "maturityDate", "face", "settlementLagDays", "id",
+        "quoteId", "bidCleanPrice", "askCleanPrice", "midCleanPrice", "yield", "quoteTime", "source",
+        "issuer", "spreadGroup", "currency", "couponRate", "frequency", "dayCount", "issueDate", "firstCouponDate", "maturityDate", "face", "settlementLagDays",
     };
 
     [Fact]
@@ -46,6 +46,7 @@ public sealed class InboundFuzzTests(ITestOutputHelper output)
         var tally = new SortedDictionary<string, int[]>(StringComparer.Ordinal); // category -> [accepted, json refused, mapper/engine refused]
         var fields = new SortedDictionary<string, int>(StringComparer.Ordinal);
         var failures = new List<string>();
+        var samples = new SortedDictionary<string, string>(StringComparer.Ordinal); // one refusal text per field and kind of reason
 
         var clock = System.Diagnostics.Stopwatch.StartNew();
         var spent = new SortedDictionary<string, double>(StringComparer.Ordinal);
@@ -79,11 +80,11 @@ public sealed class InboundFuzzTests(ITestOutputHelper output)
             }
             catch (JsonException ex)
             {
-                // STJ names the JSON path ($.faceAmount) or, for absent required members, the property names.
-                if (string.IsNullOrEmpty(ex.Path) && !ex.Message.Contains("required properties", StringComparison.Ordinal))
-                {
-                    failures.Add($"case {i} ({fuzz.Category}): JsonException without a path: {ex.Message} | {Clip(fuzz.Json)}");
-                }
+                // What the endpoint's refusal filter makes of it: the wire field and a reason in words.
+                var contract = fuzz.Contract switch { "TradeBooked" => typeof(TradeBooked), "BondQuoted" => typeof(BondQuoted), _ => typeof(InstrumentDefined) };
+                var refusal = JsonRefusal.From(ex, contract, fuzz.Json);
+                fields["json " + refusal.Field] = fields.GetValueOrDefault("json " + refusal.Field) + 1;
+                CheckRefusal(i, fuzz, refusal, allowBody: fuzz.Category == "malformed-json");
                 counts[1]++;
                 return;
             }
@@ -127,10 +128,7 @@ public sealed class InboundFuzzTests(ITestOutputHelper output)
             {
                 counts[2]++;
                 fields[ex.Field] = fields.GetValueOrDefault(ex.Field) + 1;
-                if (!WireFields.Contains(ex.Field) || string.IsNullOrWhiteSpace(ex.Reason))
-                {
-                    failures.Add($"case {i} ({fuzz.Category}): refusal without a known field or a reason: field '{ex.Field}', reason '{ex.Reason}'");
-                }
+                CheckRefusal(i, fuzz, ex, allowBody: false);
                 var after = EngineFingerprint.Of(engine, tradeIds);
                 if (!string.Equals(before, after, StringComparison.Ordinal))
                 {
@@ -143,11 +141,25 @@ public sealed class InboundFuzzTests(ITestOutputHelper output)
             }
         }
 
+        void CheckRefusal(int i, FuzzCase fuzz, MessageRejectedException ex, bool allowBody)
+        {
+            samples.TryAdd(ex.Field + " " + string.Join(' ', ex.Reason.Split(' ').Take(2)), ex.Message);
+            if (RefusalProblem(ex, allowBody) is { } problem)
+            {
+                failures.Add($"case {i} ({fuzz.Category}): {problem}: field '{ex.Field}', reason '{ex.Reason}' | {Clip(fuzz.Json)}");
+            }
+        }
+
         output.WriteLine($"seed {Seed}, {Cases} cases; serializer NumberHandling = {options.NumberHandling}, case-insensitive = {options.PropertyNameCaseInsensitive}");
         output.WriteLine("category: accepted / refused by JSON / refused by mapper or engine");
         foreach (var (category, n) in tally)
         {
             output.WriteLine(string.Create(CultureInfo.InvariantCulture, $"  {category}: {n[0]} / {n[1]} / {n[2]}"));
+        }
+        output.WriteLine("one refusal of each kind:");
+        foreach (var sample in samples.Values)
+        {
+            output.WriteLine("  " + sample);
         }
         output.WriteLine("refusals by field: " + string.Join(", ", fields.Select(f => $"{f.Key} {f.Value}")));
         var refusedByJson = tally.Values.Sum(n => n[1]);
@@ -159,6 +171,42 @@ public sealed class InboundFuzzTests(ITestOutputHelper output)
         Assert.Equal(Cases, tally.Values.Sum(n => n[0] + n[1] + n[2]));
         Assert.All(tally.Values, n => Assert.True(n[1] + n[2] > 0, "every category has refusals"));
     }
+
+    /// <summary>Why a refusal's text fails the rule (a wire field, a reason in words, no .NET text, ISO 8601 dates), or null.</summary>
+    internal static string? RefusalProblem(MessageRejectedException ex, bool allowBody)
+    {
+        var field = ex.Field;
+        if (!(WireFields.Contains(field) || (allowBody && field == JsonRefusal.BodyField)))
+        {
+            return "not a wire field";
+        }
+        if (string.IsNullOrWhiteSpace(ex.Reason))
+        {
+            return "no reason";
+        }
+        foreach (var text in new[] { ex.Message, ex.Reason })
+        {
+            foreach (var dotnet in DotNetText)
+            {
+                if (text.Contains(dotnet, StringComparison.Ordinal))
+                {
+                    return $"reason carries .NET text '{dotnet}'";
+                }
+            }
+            if (System.Text.RegularExpressions.Regex.IsMatch(text, @"\b\d{1,2}/\d{1,2}/\d{4}\b"))
+            {
+                return "a date not in ISO 8601";
+            }
+        }
+        return null;
+    }
+
+    /// <summary>Text of the runtime, the JSON reader or a C# record's ToString, never meant for a producer.</summary>
+    private static readonly string[] DotNetText =
+    [
+        "Parameter '", "Actual value", "   at ", "System.", "Monitor.", "LineNumber", "BytePosition", "Path: $", " { ", "could not be converted",
+        "invalid start of a value", "Exception",
+    ];
 
     private static string Clip(string json) => json.Length > 300 ? json[..300] + $"... ({json.Length} chars)" : json;
 }

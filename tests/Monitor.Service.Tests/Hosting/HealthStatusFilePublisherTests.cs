@@ -11,6 +11,19 @@ namespace Monitor.Service.Tests.Hosting;
 public sealed class HealthStatusFilePublisherTests
 {
     [Fact]
+    public async Task A_missing_folder_of_the_status_file_is_created()
+    {
+        using var folder = new TempFolder();
+        var file = folder.Combine(Path.Combine("var", "health", "health.json"));
+        var publisher = new HealthStatusFilePublisher(
+            Options.Create(new HealthOptions { StatusFile = file }), TimeProvider.System, NullLogger<HealthStatusFilePublisher>.Instance);
+
+        await publisher.PublishAsync(Report(HealthStatus.Healthy, "storage writable"), CancellationToken.None);
+
+        Assert.Equal("Healthy", (string?)JsonNode.Parse(File.ReadAllText(file))!["status"]);
+    }
+
+    [Fact]
     public async Task Each_report_replaces_the_file_with_the_overall_and_per_check_status()
     {
         using var folder = new TempFolder();

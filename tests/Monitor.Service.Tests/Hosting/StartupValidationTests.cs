@@ -87,9 +87,77 @@ public sealed class StartupValidationTests : IDisposable
     }
 
     [Fact]
+    public async Task A_bond_in_another_currency_in_the_instruments_file_stops_the_start_with_file_line_and_value()
+    {
+        var instruments = _folder.Combine("instruments.csv");
+        File.WriteAllText(instruments, File.ReadAllText(TestMarket.Data("instruments.csv")).Replace("VGB-2027-11,Republic of Veloria,,XTS", "VGB-2027-11,Republic of Veloria,,EUR", StringComparison.Ordinal));
+        var line = Array.FindIndex(File.ReadAllLines(instruments), l => l.StartsWith("VGB-2027-11,", StringComparison.Ordinal)) + 1;
+
+        var ex = await StartFails(s => s["Monitor:InstrumentsFile"] = instruments);
+
+        Assert.Contains("Monitor:InstrumentsFile", ex.Message, StringComparison.Ordinal);
+        Assert.Contains($"instruments.csv, line {line}, column 'currency'", ex.Message, StringComparison.Ordinal);
+        Assert.Contains("currency", ex.Message, StringComparison.Ordinal);
+        Assert.Contains("'EUR'", ex.Message, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public async Task A_reporting_currency_that_is_not_a_code_names_the_key()
+    {
+        var ex = await StartFails(s => s["Monitor:ReportingCurrency"] = "euro");
+        Assert.Contains("Monitor:ReportingCurrency", ex.Message, StringComparison.Ordinal);
+    }
+
+    [Fact]
     public async Task A_blank_exposure_log_folder_names_the_key()
     {
         var ex = await StartFails(s => s["ExposureLog:Folder"] = " ");
         Assert.Contains("ExposureLog:Folder", ex.Message, StringComparison.Ordinal);
     }
+
+    [Fact]
+    public async Task A_missing_record_key_stops_the_start_and_names_the_fix()
+    {
+        // Without a key the log and the journal could not be MACed: the start is refused (exit 2 in monitor run).
+        var ex = await StartFails(s => s["Record:KeyFile"] = _folder.Combine("no-such-key"));
+        Assert.Contains("Record:KeyFile", ex.Message, StringComparison.Ordinal);
+        Assert.Contains("no-such-key", ex.Message, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void No_key_file_and_no_variable_names_both_ways_to_give_the_key()
+    {
+        var validator = Validator(_ => null);
+        var result = validator.Validate(null, new Monitor.Service.Storage.RecordOptions());
+        Assert.True(result.Failed);
+        Assert.Contains("MONITOR_RECORD_KEY", result.FailureMessage, StringComparison.Ordinal);
+        Assert.Contains("Record:KeyFile", result.FailureMessage, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void A_key_file_inside_the_log_or_journal_folder_is_refused()
+    {
+        var log = _folder.Combine("log");
+        var key = TestKey.FileIn(log);
+        var result = Validator(_ => null).Validate(null, new Monitor.Service.Storage.RecordOptions { KeyFile = key });
+        Assert.True(result.Failed);
+        Assert.Contains("lies inside ExposureLog:Folder", result.FailureMessage, StringComparison.Ordinal);
+        var inJournal = TestKey.FileIn(log + "-journal");
+        Assert.Contains("lies inside Journal:Folder", Validator(_ => null).Validate(null, new Monitor.Service.Storage.RecordOptions { KeyFile = inJournal }).FailureMessage, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void A_checkpoint_folder_inside_the_log_folder_is_refused()
+    {
+        var options = new Monitor.Service.Storage.RecordOptions { CheckpointFolder = Path.Combine(_folder.Combine("log"), "checkpoints") };
+        var result = Validator(_ => TestKey.Text).Validate(null, options);
+        Assert.True(result.Failed);
+        Assert.Contains("Record:CheckpointFolder", result.FailureMessage, StringComparison.Ordinal);
+        Assert.True(Validator(_ => TestKey.Text).Validate(null, new Monitor.Service.Storage.RecordOptions()).Succeeded);
+    }
+
+    private RecordOptionsValidator Validator(Func<string, string?> environment) => new(
+        Microsoft.Extensions.Options.Options.Create(new Monitor.Service.Audit.ExposureLogOptions { Folder = _folder.Combine("log") }),
+        Microsoft.Extensions.Options.Options.Create(new Monitor.Service.Journal.JournalOptions { Folder = _folder.Combine("log") + "-journal" }),
+        environment);
 }

@@ -72,12 +72,12 @@ public class InstrumentDefinitionRecordTests
         using var folder = new TempFolder();
         var bond = new Bond("KST-2036-01", "Kestrel Works", "INDU-BBB", "XTS", 0.05875m, 2, DayCountConvention.Thirty360BondBasis,
             new DateOnly(2025, 7, 15), new DateOnly(2026, 1, 31), new DateOnly(2036, 1, 31), 1000m, 2);
-        await using (var journal = new TradeJournal(new JournalOptions { Folder = folder.Path }, new FakeTimeProvider(TestMarket.Now)))
+        await using (var journal = new TradeJournal(TestKey.Value, new JournalOptions { Folder = folder.Path }, new FakeTimeProvider(TestMarket.Now)))
         {
             await journal.AppendDefinitionAsync(bond);
         }
 
-        var contents = JournalReplay.Read(folder.Path, new DateOnly(2026, 6, 1));
+        var contents = JournalReplay.Read(TestKey.Value, folder.Path, new DateOnly(2026, 6, 1));
         Assert.Empty(contents.Problems);
         Assert.True(BondTerms.Same(bond, Assert.Single(contents.Definitions)));
     }
@@ -89,7 +89,7 @@ public class InstrumentDefinitionRecordTests
         // A coupon change on a bond the start-of-day positions hold: the engine refuses it.
         var held = new Bond("VGB-2031-05", "Republic of Veloria", null, "XTS", 0.05m, 2, DayCountConvention.ActActIcma,
             new DateOnly(2021, 5, 15), null, new DateOnly(2031, 5, 15));
-        await using (var journal = new TradeJournal(new JournalOptions { Folder = Path.Combine(root.Path, "exposure-log-journal") }, new FakeTimeProvider(TestMarket.Now)))
+        await using (var journal = new TradeJournal(TestKey.Value, new JournalOptions { Folder = Path.Combine(root.Path, "exposure-log-journal") }, new FakeTimeProvider(TestMarket.Now)))
         {
             await journal.AppendDefinitionAsync(held);
         }
@@ -107,7 +107,7 @@ public class InstrumentDefinitionRecordTests
         using var root = new TempFolder();
         // A trade on an instrument defined only by a message whose definition is not in the journal (as before this change).
         var trade = new TradeInput("X-1", 1, TradeAction.New, "RATES-CORE", "VGB-2035-03", 1_000_000, 99, TestMarket.Now.AddMinutes(-5));
-        await using (var journal = new TradeJournal(new JournalOptions { Folder = Path.Combine(root.Path, "exposure-log-journal") }, new FakeTimeProvider(TestMarket.Now)))
+        await using (var journal = new TradeJournal(TestKey.Value, new JournalOptions { Folder = Path.Combine(root.Path, "exposure-log-journal") }, new FakeTimeProvider(TestMarket.Now)))
         {
             await journal.AppendTradeAsync(trade);
         }

@@ -22,7 +22,7 @@ public sealed class JournalFailureTests
         using var folder = new TempFolder();
         var dayPath = JournalFiles.PathOf(folder.Path, Day);
         Directory.CreateDirectory(dayPath);
-        await using var journal = new TradeJournal(new JournalOptions { Folder = folder.Path }, new ManualClock(Now));
+        await using var journal = new TradeJournal(TestKey.Value, new JournalOptions { Folder = folder.Path }, new ManualClock(Now));
 
         var ex = await Assert.ThrowsAsync<JournalWriteException>(() => journal.AppendTradeAsync(T("T-1")).AsTask());
 
@@ -38,7 +38,7 @@ public sealed class JournalFailureTests
         Assert.True(journal.IsHealthy);
         Assert.Equal(HealthStatus.Healthy, (await new JournalHealthCheck(journal).CheckHealthAsync(new HealthCheckContext())).Status);
         Assert.Null(journal.LastError);
-        var contents = JournalReplay.Read(folder.Path, Day);
+        var contents = JournalReplay.Read(TestKey.Value, folder.Path, Day);
         Assert.Empty(contents.Problems);
         Assert.Equal(["T-1"], contents.Trades.Select(t => t.TradeId));
     }
@@ -50,7 +50,7 @@ public sealed class JournalFailureTests
         var blocker = folder.Combine("blocker");
         File.WriteAllText(blocker, "a file where a folder should be");
         var journalFolder = Path.Combine(blocker, "journal");
-        await using var journal = new TradeJournal(new JournalOptions { Folder = journalFolder }, new ManualClock(Now));
+        await using var journal = new TradeJournal(TestKey.Value, new JournalOptions { Folder = journalFolder }, new ManualClock(Now));
 
         var ex = await Assert.ThrowsAsync<JournalWriteException>(() => journal.AppendTradeAsync(T("T-1")).AsTask());
 
@@ -60,7 +60,7 @@ public sealed class JournalFailureTests
         File.Delete(blocker);
         await journal.AppendTradeAsync(T("T-1"));
         Assert.True(journal.IsHealthy);
-        Assert.Equal(["T-1"], JournalReplay.Read(journalFolder, Day).Trades.Select(t => t.TradeId));
+        Assert.Equal(["T-1"], JournalReplay.Read(TestKey.Value, journalFolder, Day).Trades.Select(t => t.TradeId));
     }
 
     [Fact]
@@ -73,7 +73,7 @@ public sealed class JournalFailureTests
         }
         using var folder = new TempFolder();
         var clock = new ManualClock(Now);
-        await using var journal = new TradeJournal(new JournalOptions { Folder = folder.Path }, clock);
+        await using var journal = new TradeJournal(TestKey.Value, new JournalOptions { Folder = folder.Path }, clock);
         await journal.AppendTradeAsync(T("T-1"));
         var nextDay = Day.AddDays(1);
         var nextPath = JournalFiles.PathOf(folder.Path, nextDay);
@@ -89,8 +89,8 @@ public sealed class JournalFailureTests
         File.Delete(nextPath); // space freed
         await journal.AppendTradeAsync(T("T-2")); // the redelivered message
         Assert.True(journal.IsHealthy);
-        Assert.Equal(["T-1"], JournalReplay.Read(folder.Path, Day).Trades.Select(t => t.TradeId));
-        var next = JournalReplay.Read(folder.Path, nextDay);
+        Assert.Equal(["T-1"], JournalReplay.Read(TestKey.Value, folder.Path, Day).Trades.Select(t => t.TradeId));
+        var next = JournalReplay.Read(TestKey.Value, folder.Path, nextDay);
         Assert.Empty(next.Problems);
         Assert.Equal(["T-2"], next.Trades.Select(t => t.TradeId));
         Assert.Equal(1, next.LastSeq);
@@ -102,7 +102,7 @@ public sealed class JournalFailureTests
         using var folder = new TempFolder();
         var dayPath = JournalFiles.PathOf(folder.Path, Day);
         Directory.CreateDirectory(dayPath); // no caller waits on a quote: the journal itself must keep it through the failure
-        await using var journal = new TradeJournal(new JournalOptions { Folder = folder.Path }, new ManualClock(Now));
+        await using var journal = new TradeJournal(TestKey.Value, new JournalOptions { Folder = folder.Path }, new ManualClock(Now));
         var quote = new BondQuote("VGB-2030-08", Now.AddMinutes(-5), 98.1, 98.2, null, null, "feed-a");
 
         journal.AppendQuote(quote);
@@ -115,7 +115,7 @@ public sealed class JournalFailureTests
         Directory.Delete(dayPath);
         await journal.AppendTradeAsync(T("T-1"));
 
-        var contents = JournalReplay.Read(folder.Path, Day);
+        var contents = JournalReplay.Read(TestKey.Value, folder.Path, Day);
         Assert.Empty(contents.Problems);
         Assert.Equal(["T-1"], contents.Trades.Select(t => t.TradeId));
         Assert.Equal(quote, Assert.Single(contents.LatestQuotes).Value);

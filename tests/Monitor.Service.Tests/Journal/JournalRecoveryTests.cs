@@ -32,7 +32,7 @@ public sealed class JournalRecoveryTests
     {
         using var folder = new TempFolder();
         var direct = Create();
-        await using (var journal = new TradeJournal(new JournalOptions { Folder = folder.Path }, new ManualClock(Now)))
+        await using (var journal = new TradeJournal(TestKey.Value, new JournalOptions { Folder = folder.Path }, new ManualClock(Now)))
         {
             foreach (var trade in Stream)
             {
@@ -51,7 +51,7 @@ public sealed class JournalRecoveryTests
         direct.RefitDirtyCurves(Now);
 
         var rebuilt = Create();
-        var result = JournalRecovery.Rebuild(rebuilt, JournalReplay.Read(folder.Path, Day), Now);
+        var result = JournalRecovery.Rebuild(rebuilt, JournalReplay.Read(TestKey.Value, folder.Path, Day), Now);
 
         Assert.Equal(6, result.Applied); // R-1 v1, R-2 v1, C-1, R-1 v2, R-2 v2 (cancel), C-2
         Assert.Equal(1, result.Duplicates);
@@ -67,14 +67,14 @@ public sealed class JournalRecoveryTests
     public async Task Replaying_the_journal_twice_changes_nothing_the_second_time()
     {
         using var folder = new TempFolder();
-        await using (var journal = new TradeJournal(new JournalOptions { Folder = folder.Path }, new ManualClock(Now)))
+        await using (var journal = new TradeJournal(TestKey.Value, new JournalOptions { Folder = folder.Path }, new ManualClock(Now)))
         {
             foreach (var trade in Stream.Take(4))
             {
                 await journal.AppendTradeAsync(trade);
             }
         }
-        var contents = JournalReplay.Read(folder.Path, Day);
+        var contents = JournalReplay.Read(TestKey.Value, folder.Path, Day);
         var engine = Create();
         JournalRecovery.Rebuild(engine, contents, Now);
         var once = Fingerprint(engine);

@@ -22,7 +22,7 @@ public sealed class JournalReplayTests
         var cut = lastLineStart + ((bytes.Length - lastLineStart) / 2); // a crash in the middle of the fifth line
         File.WriteAllBytes(path, bytes[..cut]);
 
-        var contents = JournalReplay.Read(folder.Path, Day);
+        var contents = JournalReplay.Read(TestKey.Value, folder.Path, Day);
 
         Assert.Equal(["T-0", "T-1", "T-2", "T-3"], contents.Trades.Select(t => t.TradeId));
         var problem = Assert.Single(contents.Problems);
@@ -31,12 +31,12 @@ public sealed class JournalReplayTests
         Assert.Equal(lastLineStart, contents.CompleteLength);
 
         // The fifth append never completed, so its message was not acknowledged: the broker redelivers it.
-        await using (var journal = new TradeJournal(new JournalOptions { Folder = folder.Path }, new ManualClock(Now)))
+        await using (var journal = new TradeJournal(TestKey.Value, new JournalOptions { Folder = folder.Path }, new ManualClock(Now)))
         {
             await journal.AppendTradeAsync(Trade("T-4", 1, TradeAction.New, "RATES-CORE", "VGB-2030-08", 1e6));
             Assert.Equal(JournalProblemKind.TornTail, Assert.Single(journal.Repairs).Kind);
         }
-        var repaired = JournalReplay.Read(folder.Path, Day);
+        var repaired = JournalReplay.Read(TestKey.Value, folder.Path, Day);
         Assert.Empty(repaired.Problems);
         Assert.Equal(["T-0", "T-1", "T-2", "T-3", "T-4"], repaired.Trades.Select(t => t.TradeId));
         Assert.Equal(5, repaired.LastSeq);
@@ -53,10 +53,10 @@ public sealed class JournalReplayTests
         lines[1] = lines[1].Replace("\"faceAmount\":1000001,", "\"faceAmount\":9000001,", StringComparison.Ordinal); // still valid JSON
         File.WriteAllText(path, string.Join('\n', lines) + "\n");
 
-        var contents = JournalReplay.Read(folder.Path, Day);
+        var contents = JournalReplay.Read(TestKey.Value, folder.Path, Day);
 
         Assert.Equal(["T-0", "T-2", "T-3"], contents.Trades.Select(t => t.TradeId));
-        var mismatch = Assert.Single(contents.Problems, p => p.Kind == JournalProblemKind.HashMismatch);
+        var mismatch = Assert.Single(contents.Problems, p => p.Kind == JournalProblemKind.MacMismatch);
         Assert.Equal(2, mismatch.LineNumber);
         // The next good line (seq 3) no longer follows the last good one (seq 1): reported as well.
         Assert.Contains(contents.Problems, p => p.Kind == JournalProblemKind.SequenceGap && p.LineNumber == 3);
@@ -72,7 +72,7 @@ public sealed class JournalReplayTests
         var firstEnd = text.IndexOf('\n', StringComparison.Ordinal) + 1;
         File.WriteAllText(path, text[..firstEnd] + "not a journal line\n" + text[firstEnd..]);
 
-        var contents = JournalReplay.Read(folder.Path, Day);
+        var contents = JournalReplay.Read(TestKey.Value, folder.Path, Day);
 
         Assert.Equal(["T-0", "T-1"], contents.Trades.Select(t => t.TradeId));
         Assert.Equal(JournalProblemKind.Unparsable, Assert.Single(contents.Problems).Kind);
@@ -83,7 +83,7 @@ public sealed class JournalReplayTests
     {
         using var folder = new TempFolder();
 
-        var contents = JournalReplay.Read(folder.Path, Day);
+        var contents = JournalReplay.Read(TestKey.Value, folder.Path, Day);
 
         Assert.Empty(contents.Trades);
         Assert.Empty(contents.LatestQuotes);
@@ -93,7 +93,7 @@ public sealed class JournalReplayTests
 
     private static async Task WriteTradesAsync(string folder, int count)
     {
-        await using var journal = new TradeJournal(new JournalOptions { Folder = folder }, new ManualClock(Now));
+        await using var journal = new TradeJournal(TestKey.Value, new JournalOptions { Folder = folder }, new ManualClock(Now));
         for (var i = 0; i < count; i++)
         {
             await journal.AppendTradeAsync(Trade($"T-{i}", 1, TradeAction.New, "RATES-CORE", "VGB-2030-08", 1_000_000 + i));

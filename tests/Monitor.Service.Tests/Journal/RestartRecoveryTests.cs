@@ -37,7 +37,7 @@ public class RestartRecoveryTests
         await second.TradeAsync(ServiceUnderTest.Trade("R-2", 1, "new", "RATES-CURVE", "VGB-2051-11", -3_000_000));
         before.AssertSame(await Snapshot.OfAsync(second));
 
-        var log = ExposureLogVerifier.VerifyFolder(second.LogFolder);
+        var log = ExposureLogVerifier.VerifyFolder(TestKey.Value, second.LogFolder);
         Assert.True(log.Intact, string.Join("; ", log.Problems));
         Assert.True(log.LastSeq > lastSeq, "the second run appends to the same chain");
     }
@@ -71,7 +71,7 @@ public class RestartRecoveryTests
         // A kill between the journal's fsync and the log write: the trade is durable, its audit record is not.
         using var root = new TempFolder();
         var trade = new TradeInput("J-1", 1, TradeAction.New, "RATES-CORE", "VGB-2031-05", 2_000_000, 99.5, TestMarket.Now.AddMinutes(-2));
-        await using (var journal = new TradeJournal(new JournalOptions { Folder = Path.Combine(root.Path, "exposure-log-journal") }, new FakeTimeProvider(TestMarket.Now)))
+        await using (var journal = new TradeJournal(TestKey.Value, new JournalOptions { Folder = Path.Combine(root.Path, "exposure-log-journal") }, new FakeTimeProvider(TestMarket.Now)))
         {
             await journal.AppendTradeAsync(trade);
         }

@@ -6,7 +6,7 @@ using static Monitor.Service.Tests.Journal.JournalTestEngine;
 
 namespace Monitor.Service.Tests.Journal;
 
-/// <summary>Writing and reading back the journal (format MTJ-1, src/Monitor.Service/Journal/README.md).</summary>
+/// <summary>Writing and reading back the journal (format trade-journal/2, src/Monitor.Service/Journal/README.md).</summary>
 public sealed class TradeJournalTests
 {
     private static readonly DateOnly Day = new(2026, 6, 1);
@@ -26,7 +26,7 @@ public sealed class TradeJournalTests
         var q2 = new BondQuote("VGB-2030-08", Now.AddMinutes(-10), null, null, 98.3, null, "feed-a");
         var q3 = new BondQuote("VGB-2030-08", Now.AddMinutes(-20), null, null, 97.0, null, "feed-b"); // older, arrives last: not kept
         var q4 = new BondQuote("QFU-2029-03", new DateTimeOffset(2026, 6, 1, 18, 0, 0, TimeSpan.FromHours(2)), null, null, null, 0.0412, null);
-        await using (var journal = new TradeJournal(new JournalOptions { Folder = folder.Path }, new ManualClock(Now)))
+        await using (var journal = new TradeJournal(TestKey.Value, new JournalOptions { Folder = folder.Path }, new ManualClock(Now)))
         {
             journal.AppendQuote(q1);
             await journal.AppendTradeAsync(trades[0]);
@@ -39,7 +39,7 @@ public sealed class TradeJournalTests
             Assert.True(journal.IsHealthy);
         }
 
-        var contents = JournalReplay.Read(folder.Path, Day);
+        var contents = JournalReplay.Read(TestKey.Value, folder.Path, Day);
 
         Assert.Empty(contents.Problems);
         Assert.Equal(trades, contents.Trades); // record equality: the whole payload, version and action included
@@ -55,17 +55,17 @@ public sealed class TradeJournalTests
     {
         using var folder = new TempFolder();
         var options = new JournalOptions { Folder = folder.Path };
-        await using (var first = new TradeJournal(options, new ManualClock(Now)))
+        await using (var first = new TradeJournal(TestKey.Value, options, new ManualClock(Now)))
         {
             await first.AppendTradeAsync(Trade("T-1", 1, TradeAction.New, "RATES-CORE", "VGB-2030-08", 1e6));
             await first.AppendTradeAsync(Trade("T-2", 1, TradeAction.New, "RATES-CORE", "VGB-2030-08", 2e6));
         }
-        await using (var second = new TradeJournal(options, new ManualClock(Now.AddMinutes(1))))
+        await using (var second = new TradeJournal(TestKey.Value, options, new ManualClock(Now.AddMinutes(1))))
         {
             await second.AppendTradeAsync(Trade("T-3", 1, TradeAction.New, "RATES-CORE", "VGB-2030-08", 3e6));
         }
 
-        var contents = JournalReplay.Read(folder.Path, Day);
+        var contents = JournalReplay.Read(TestKey.Value, folder.Path, Day);
 
         Assert.Empty(contents.Problems);
         Assert.Equal(3, contents.LastSeq);
@@ -79,12 +79,12 @@ public sealed class TradeJournalTests
         // 02:00Z on 1 June is 22:00 on 31 May in New York (EDT, UTC-4): before a 23:00 roll, so business day 31 May.
         var clock = new ManualClock(new DateTimeOffset(2026, 6, 1, 2, 0, 0, TimeSpan.Zero));
         var roll = new BusinessDayRoll(new TimeOnly(23, 0), TimeZoneInfo.FindSystemTimeZoneById("America/New_York"));
-        await using (var journal = new TradeJournal(new JournalOptions { Folder = folder.Path }, clock, roll))
+        await using (var journal = new TradeJournal(TestKey.Value, new JournalOptions { Folder = folder.Path }, clock, roll))
         {
             await journal.AppendTradeAsync(Trade("T-1", 1, TradeAction.New, "RATES-CORE", "VGB-2030-08", 1e6));
         }
 
-        Assert.Single(JournalReplay.Read(folder.Path, new DateOnly(2026, 5, 31)).Trades);
+        Assert.Single(JournalReplay.Read(TestKey.Value, folder.Path, new DateOnly(2026, 5, 31)).Trades);
         Assert.False(File.Exists(JournalFiles.PathOf(folder.Path, Day)));
     }
 
@@ -95,7 +95,7 @@ public sealed class TradeJournalTests
         const int callers = 16;
         const int perCaller = 100;
         long flushes;
-        await using (var journal = new TradeJournal(new JournalOptions { Folder = folder.Path }, new ManualClock(Now)))
+        await using (var journal = new TradeJournal(TestKey.Value, new JournalOptions { Folder = folder.Path }, new ManualClock(Now)))
         {
             var tasks = Enumerable.Range(0, callers).Select(c => Task.Run(async () =>
             {
@@ -110,7 +110,7 @@ public sealed class TradeJournalTests
             Assert.Equal(callers * perCaller, journal.RecordCount);
         }
 
-        var contents = JournalReplay.Read(folder.Path, Day);
+        var contents = JournalReplay.Read(TestKey.Value, folder.Path, Day);
 
         Assert.Empty(contents.Problems);
         Assert.Equal(callers * perCaller, contents.Trades.Count);
@@ -129,7 +129,7 @@ public sealed class TradeJournalTests
     {
         using var folder = new TempFolder();
         const int count = 1000;
-        await using (var journal = new TradeJournal(new JournalOptions { Folder = folder.Path, MaxBatch = 64 }, new ManualClock(Now)))
+        await using (var journal = new TradeJournal(TestKey.Value, new JournalOptions { Folder = folder.Path, MaxBatch = 64 }, new ManualClock(Now)))
         {
             var pending = new List<Task>(count);
             for (var i = 0; i < count; i++)
@@ -140,7 +140,7 @@ public sealed class TradeJournalTests
             Assert.True(journal.FlushCount < count);
         }
 
-        var contents = JournalReplay.Read(folder.Path, Day);
+        var contents = JournalReplay.Read(TestKey.Value, folder.Path, Day);
 
         Assert.Equal(Enumerable.Range(0, count).Select(i => $"T-{i}"), contents.Trades.Select(t => t.TradeId));
     }

@@ -32,7 +32,7 @@ public class DayCloseTests
             Assert.Equal(new DateTimeOffset(2026, 6, 2, 0, 0, 0, TimeSpan.Zero), close.ClosedAt);
             var closed = JsonDocument.Parse(Assert.Single(ServiceUnderTest.LogLines(service.LogFolder, ExposureLogKinds.DayClosed))).RootElement;
             Assert.Equal(close.LogSeq, closed.GetProperty("seq").GetInt64());
-            Assert.Equal(close.LogHash, closed.GetProperty("hash").GetString());
+            Assert.Equal(close.LogMac, closed.GetProperty("mac").GetString());
             Assert.Equal("2026-06-01", closed.GetProperty("payload").GetProperty("businessDate").GetString());
             Assert.Equal(valued, ServiceUnderTest.LogLines(service.LogFolder, ExposureLogKinds.CloseSnapshot).Count);
             Assert.Equal(valued, close.Books);

@@ -87,7 +87,7 @@ public class DurableOutboxTests
         ServiceUnderTest.LogLines(logFolder)
             .Select(l => JsonDocument.Parse(l).RootElement)
             .Where(r => EventKinds.Contains(r.GetProperty("kind").GetString()))
-            .ToDictionary(r => OutboxEntry.IdOf(r.GetProperty("seq").GetInt64(), r.GetProperty("hash").GetString()!), r => r.GetProperty("kind").GetString()!);
+            .ToDictionary(r => OutboxEntry.IdOf(r.GetProperty("seq").GetInt64(), r.GetProperty("mac").GetString()!), r => r.GetProperty("kind").GetString()!);
 
     private static HashSet<Guid> PublishedIds(ServiceUnderTest service) => [.. PublishedMessages(service).Keys];
 

@@ -31,8 +31,9 @@ public sealed class PipelineScenarioTests : IDisposable
         await using var service = await ServiceUnderTest.StartAsync();
         await ServiceUnderTest.WaitUntilAsync(() => service.Harness.Published.Select<CurveFitted>().Any(), "opening fit");
         Assert.True(await service.Harness.Published.Any<CurveFitted>(x => x.Context.Message.CurveId == CurveKeyLabel.Government && x.Context.Message.Version == 1));
-        Assert.True(await service.Harness.Published.Any<CurveRejected>(x => x.Context.Message.CurveId == "UTIL-A"));
         Assert.True(await service.Harness.Published.Any<BookExposuresBatch>(x => x.Context.Message.Books.Any(b => b.Book == "RATES-CORE" && b.Measures["dv01"] > 0)));
+        // UTIL-A has three bonds, below the spread minimum of four: no fit is tried, so nothing is rejected (issue 11).
+        Assert.False(await service.Harness.Published.Any<CurveRejected>(x => x.Context.Message.CurveId == "UTIL-A"));
     }
 
     [Fact]
@@ -144,7 +145,7 @@ public sealed class PipelineScenarioTests : IDisposable
     }
 
     [Fact]
-    public async Task Par_yields_refit_the_government_curve()
+    public async Task Par_yields_fit_their_own_reference_curve_and_move_no_figures()
     {
         await using var service = await ServiceUnderTest.StartAsync();
         await ServiceUnderTest.WaitUntilAsync(() => service.Harness.Published.Select<CurveFitted>().Any(), "opening fit");
@@ -154,8 +155,14 @@ public sealed class PipelineScenarioTests : IDisposable
         await service.Harness.Bus.Publish(new ParYieldsPublished { CurveId = "government", AsOf = TestMarket.Now, Points = points, Source = "test" });
 
         Assert.True(await service.Harness.Consumed.Any<ParYieldsPublished>());
-        await ServiceUnderTest.WaitUntilAsync(() => service.Harness.Published.Select<CurveFitted>().Any(x => x.Context.Message.Version == 2 && x.Context.Message.CurveId == CurveKeyLabel.Government), "par-yield fit");
-        Assert.True(await service.Harness.Published.Any<BookExposuresBatch>(x => x.Context.Message.Books.Any(b => b.CauseMessageType == nameof(ParYieldsPublished))));
+        await ServiceUnderTest.WaitUntilAsync(() => service.Harness.Published.Select<CurveFitted>().Any(x => x.Context.Message.CurveId == CurveKeyLabel.GovernmentPar), "par-yield fit");
+        await service.Pipeline.WhenPublishedAsync();
+        var par = service.Harness.Published.Select<CurveFitted>().Select(x => x.Context.Message).Single(m => m.CurveId == CurveKeyLabel.GovernmentPar);
+        Assert.Equal(1, par.Version);
+        Assert.Null(par.BaseCurveId);
+        // The valuation curve stays the bond-fitted one: no second government version, no book figures from par yields.
+        Assert.DoesNotContain(service.Harness.Published.Select<CurveFitted>(), x => x.Context.Message.CurveId == CurveKeyLabel.Government && x.Context.Message.Version > 1);
+        Assert.DoesNotContain(service.Harness.Published.Select<BookExposuresBatch>(), x => x.Context.Message.Books.Any(b => b.CauseMessageType == nameof(ParYieldsPublished)));
     }
 
     [Fact]

@@ -139,7 +139,7 @@ public sealed class DayFileRetentionTests : IDisposable
 
     private DayFileRetention Retention(int daysKept) =>
         new(new RetentionOptions { DaysKept = daysKept, ArchiveFolder = Archive }, LogFolder, JournalFolder,
-            new DayEndRecordClosedDays(LogFolder), NullLogger<DayFileRetention>.Instance);
+            new DayEndRecordClosedDays(LogFolder, TestKey.Value), NullLogger<DayFileRetention>.Instance);
 
     private static string JournalPath(string folder, DateOnly day) => Monitor.Service.Journal.JournalFiles.PathOf(folder, day);
 
@@ -153,7 +153,7 @@ public sealed class DayFileRetentionTests : IDisposable
         journalFolder ??= JournalFolder;
         Directory.CreateDirectory(journalFolder);
         var clock = new FakeTimeProvider(new DateTimeOffset(first.ToDateTime(new TimeOnly(9, 0)), TimeSpan.Zero));
-        using var writer = new ExposureLogWriter(new ExposureLogOptions { Folder = logFolder, FlushToDisk = false }, clock);
+        using var writer = new ExposureLogWriter(TestKey.Value, new ExposureLogOptions { Folder = logFolder, FlushToDisk = false }, clock);
         for (var i = 0; i < count; i++)
         {
             var day = first.AddDays(i);

@@ -143,7 +143,7 @@ public sealed class StorageFaultGateTests
         var gate = Gate(time);
         var failing = false;
         var attempts = Channel.CreateUnbounded<DateTimeOffset>();
-        using (var writer = new ExposureLogWriter(Options(folder.Path), time, s => new FaultyStream(s, () => failing)))
+        using (var writer = new ExposureLogWriter(TestKey.Value, Options(folder.Path), time, s => new FaultyStream(s, () => failing)))
         {
             writer.Append(ExposureLogKinds.Snapshot, time.GetUtcNow(), Cause(1), Figures(1));
             failing = true; // each attempt writes half the line, then fails with ENOSPC
@@ -167,7 +167,7 @@ public sealed class StorageFaultGateTests
             Assert.Equal(3, writer.LastSeq);
         }
 
-        var result = ExposureLogVerifier.VerifyFolder(folder.Path);
+        var result = ExposureLogVerifier.VerifyFolder(TestKey.Value, folder.Path);
         Assert.True(result.Intact, string.Join("; ", result.Problems));
         Assert.Equal(3, result.Records);
         Assert.False(gate.IsFailing);

@@ -61,16 +61,20 @@ public sealed class ServiceUnderTest : IAsyncDisposable
         ["Monitor:BookEventInterval"] = "00:00:00",
         ["ExposureLog:Folder"] = logFolder,
         ["ExposureLog:FlushToDisk"] = "false",
+        // The record key in a file beside (never inside) the log folder.
+        ["Record:KeyFile"] = TestKey.FileIn(Path.GetDirectoryName(Path.GetFullPath(logFolder))!),
     };
 
     /// <param name="limitsFile">A limits file other than Data/limits.json.</param>
     /// <param name="logStream">Wraps each exposure-log day file's stream (to inject write failures).</param>
     /// <param name="root">A folder the caller keeps (to restart a service on the same log and journal); default a new temporary one.</param>
     /// <param name="now">The clock at start; default <see cref="TestMarket.Now"/>.</param>
-    /// <param name="settings">Configuration keys to add or replace (a null value removes the key).</param>
+    /// <param name="settings">Configuration keys to add or replace (a null value removes the key), e.g. <c>Journal:AcceptLoss</c>.</param>
     /// <param name="services">Registrations added after the service's own (e.g. an IDayCloseListener).</param>
+    /// <param name="logging">Replaces the default logging (e.g. a Serilog logger with a capturing sink).</param>
     public static async Task<ServiceUnderTest> StartAsync(string? limitsFile = null, Func<Stream, Stream>? logStream = null, string? root = null,
-        DateTimeOffset? now = null, IReadOnlyDictionary<string, string?>? settings = null, Action<IServiceCollection>? services = null)
+        DateTimeOffset? now = null, IReadOnlyDictionary<string, string?>? settings = null, Action<IServiceCollection>? services = null,
+        Action<IServiceCollection>? logging = null)
     {
         var folder = root is null ? new TempFolder() : null;
         var logFolder = Path.Combine(root ?? folder!.Path, "exposure-log");
@@ -89,13 +93,21 @@ public sealed class ServiceUnderTest : IAsyncDisposable
         var configuration = new ConfigurationBuilder().AddInMemoryCollection(values).Build();
         var time = new FakeTimeProvider(now ?? TestMarket.Now);
         var collection = new ServiceCollection();
-        collection.AddLogging();
+        if (logging is null)
+        {
+            collection.AddLogging();
+        }
+        else
+        {
+            logging(collection);
+        }
         collection.AddSingleton<TimeProvider>(time);
         collection.AddMonitorServiceCore(configuration, null, static (s, bus) => s.AddMassTransitTestHarness(bus));
         services?.Invoke(collection);
         if (logStream is not null)
         {
-            collection.AddSingleton(sp => new ExposureLogWriter(sp.GetRequiredService<IOptions<ExposureLogOptions>>().Value, sp.GetRequiredService<TimeProvider>(), logStream, sp.GetRequiredService<Monitor.Service.Engine.BusinessDayRoll>()));
+            collection.AddSingleton(sp => new ExposureLogWriter(sp.GetRequiredService<Monitor.Service.Storage.RecordKey>(), sp.GetRequiredService<IOptions<ExposureLogOptions>>().Value,
+                sp.GetRequiredService<TimeProvider>(), logStream, sp.GetRequiredService<Monitor.Service.Engine.BusinessDayRoll>()));
         }
         // TestTimeout: past it the harness cancels its token and the stop (stop record) fails; tests that wait on the
         // limits file's polling watcher run longer than the 30 s default on a loaded machine.
@@ -146,7 +158,7 @@ public sealed class ServiceUnderTest : IAsyncDisposable
 
     public Task<EngineState> StateAsync() => Pipeline.ReadAsync(EngineState.Of);
 
-    public ExposureLogVerification VerifyLog() => ExposureLogVerifier.VerifyFolder(LogFolder);
+    public ExposureLogVerification VerifyLog() => ExposureLogVerifier.VerifyFolder(TestKey.Value, LogFolder);
 
     /// <summary>Every line of every exposure-log day file in <paramref name="logFolder"/>, oldest day first.</summary>
     public static IReadOnlyList<string> LogLines(string logFolder) =>
