@@ -103,6 +103,7 @@ public sealed class RunVerbTests : IDisposable
                 Broker = new { Host = broker.Host, Port = broker.Port, VirtualHost = vhost, UserFile = Path.Combine(_dir, "user"), PasswordFile = Path.Combine(_dir, "password") },
             },
             ExposureLog = new { Folder = Path.Combine(_dir, "exposure-log") },
+            Record = new { KeyFile = TestKey.FileIn(_dir) },
             Serilog = new { MinimumLevel = "Fatal" },
         }));
         using var error = new StringWriter();
@@ -127,6 +128,7 @@ public sealed class RunVerbTests : IDisposable
               "Monitor": { "InstrumentsFile": "{{CliRun.Data("instruments.csv")}}", "LimitsFile": "{{Path.Combine(_dir, "limits.json")}}" },
               "Transport": { "Kind": "InMemory" },
               "ExposureLog": { "Folder": "{{log}}", "FlushToDisk": false },
+              "Record": { "KeyFile": "{{TestKey.FileIn(_dir)}}" },
               "Serilog": { "MinimumLevel": "Fatal" }
             }
             """);

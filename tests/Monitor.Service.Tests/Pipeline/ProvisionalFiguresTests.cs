@@ -42,7 +42,7 @@ public sealed class ProvisionalFiguresTests : IDisposable
         Assert.False(core.Provisional);
         Assert.Null(core.ProvisionalReasons);
 
-        var log = string.Concat(Directory.GetFiles(service.LogFolder).Select(File.ReadAllText));
+        var log = string.Concat(Directory.GetFiles(service.LogFolder, "*.jsonl").Select(File.ReadAllText));
         Assert.Contains("\"limitId\":\"t-credit-value\"", log, StringComparison.Ordinal);
         var record = log.Split('\n').First(l => l.Contains("\"limitId\":\"t-credit-value\"", StringComparison.Ordinal));
         Assert.Contains("\"provisional\":true", record, StringComparison.Ordinal);
