@@ -51,14 +51,14 @@ internal static class FaultFigures
             errorQueued += await publisher.ReadyCountAsync(queue + "_error") ?? 0;
         }
         var verification = rig.VerifyExposureLog();
-        var dayEnds = rig.ExposureRecords(ExposureLogKinds.DayEnd).Count;
+        var dayEnds = rig.ExposureRecords(ExposureLogKinds.StopSnapshot).Count;
         var fitted = rig.ExposureRecords(ExposureLogKinds.CurveFitted).Count;
         var rejected = rig.ExposureRecords(ExposureLogKinds.CurveRejected);
 
         Report(output, string.Create(CultureInfo.InvariantCulture,
             $"fault: {fault}; sent: {stream.Messages.Count} messages ({stream.TradeMessages} trade versions of {stream.LastVersions.Count} trades, {stream.QuoteMessages} quotes); " +
             $"lost: {lost}; duplicated: {duplicated}; refused to error queues: {errorQueued}; positions wrong: {wrong.Count} of {expected.Count}; " +
-            $"trade versions without a trade-applied record: {notLogged}; journal problems: {journalProblems.Count}; exposure log: {verification.Records} records, intact {verification.Intact}; day-end records: {dayEnds}; curves fitted: {fitted}, rejected: {rejected.Count}"));
+            $"trade versions without a trade-applied record: {notLogged}; journal problems: {journalProblems.Count}; exposure log: {verification.Records} records, intact {verification.Intact}; stop-snapshot records: {dayEnds}; curves fitted: {fitted}, rejected: {rejected.Count}"));
         foreach (var rejection in rejected.Take(3))
         {
             output.WriteLine($"curve rejected: {rejection.ToJsonString()}");
@@ -75,6 +75,6 @@ internal static class FaultFigures
         Assert.True(notLogged == 0, $"{notLogged} journalled trade versions have no trade-applied record in the exposure log");
         Assert.Equal(0u, errorQueued);
         Assert.True(verification.Intact, "exposure log: " + string.Join("; ", verification.Problems.Select(p => p.ToString())));
-        Assert.True(dayEnds > 0, "no day-end record: the graceful stop did not write its snapshot");
+        Assert.True(dayEnds > 0, "no stop-snapshot record: the graceful stop did not write its snapshot");
     }
 }

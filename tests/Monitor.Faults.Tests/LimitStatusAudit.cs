@@ -116,15 +116,15 @@ internal static class LimitStatusAudit
             }
         }
 
-        // 4: the day-end exposures of the last process against the reference books.
-        var dayEnds = log.Where(r => r.Kind == ExposureLogKinds.DayEnd && runStarts.All(s => r.Seq > s)).ToList();
+        // 4: the stop-snapshot exposures of the last process against the reference books.
+        var dayEnds = log.Where(r => r.Kind == ExposureLogKinds.StopSnapshot && runStarts.All(s => r.Seq > s)).ToList();
         var worst = 0.0;
         foreach (var book in reference.Refit.Books)
         {
             var written = dayEnds.LastOrDefault(r => (string)r.Payload["book"]! == book.Book);
             if (written is null)
             {
-                problems.Add($"{book.Book}: valued by the reference but no day-end record");
+                problems.Add($"{book.Book}: valued by the reference but no stop-snapshot record");
                 continue;
             }
             foreach (var (measure, value) in book.Exposures.Totals)
@@ -134,13 +134,13 @@ internal static class LimitStatusAudit
                 worst = Math.Max(worst, difference);
                 if (difference > ExposureTolerance)
                 {
-                    problems.Add($"{book.Book} {LimitsFileParser.JsonName(measure)}: day-end {F(logged)}, reference {F(value)}");
+                    problems.Add($"{book.Book} {LimitsFileParser.JsonName(measure)}: stop-snapshot {F(logged)}, reference {F(value)}");
                 }
             }
         }
         FaultFigures.Report(output, string.Create(CultureInfo.InvariantCulture,
             $"limit status changes in the log: {changes.Count} over {runStarts.Count + 1} process run(s); limits the stream ends outside Within: {notWithin} of {limits.Count}; " +
-            $"day-end exposures vs reference: {reference.Refit.Books.Count} books, worst relative difference {worst:E1}; problems: {problems.Count}"));
+            $"stop-snapshot exposures vs reference: {reference.Refit.Books.Count} books, worst relative difference {worst:E1}; problems: {problems.Count}"));
 
         Assert.True(problems.Count == 0, "limit statuses in the exposure log:\n" + string.Join('\n', problems));
         // The test's limits are set so that the stream moves statuses; without records the checks above prove little.

@@ -17,7 +17,7 @@ namespace Monitor.Cli.Demo;
 /// <summary>
 /// Runs the demo: copies config/demo into the working folder, writes the 08:00 quotes as the opening quotes file, starts the service in-process on the in-memory
 /// transport with the <see cref="SimulatedClock"/>, plays the <see cref="DemoScenario"/> through the bus, shows it
-/// (<see cref="LiveView"/> or <see cref="PlainView"/>), stops the service (day-end snapshot), verifies the exposure log
+/// (<see cref="LiveView"/> or <see cref="PlainView"/>), stops the service (stop record), verifies the exposure log
 /// and prints the <see cref="DemoSummary"/>.
 /// </summary>
 internal static class DemoRunner

@@ -8,8 +8,9 @@ namespace Monitor.Cli.Verbs;
 
 /// <summary>
 /// <c>monitor run [--config FILE]</c>: runs the service until Ctrl+C (or SIGTERM), which stops it cleanly and writes the
-/// day-end snapshot. Exit 0 after a clean stop, 2 when the configuration is refused, a folder is in use by another instance, or the
-/// journal or exposure log fails its check at start (the reasons go to stderr), 5 when a fault stopped the service.
+/// stop record (`stop-snapshot` per book, then `service-stopped`; the day's close is written only when the roll passes). Exit 0 after a
+/// clean stop, 2 when the configuration is refused, a folder is in use by another instance, or the journal or exposure log fails its
+/// check at start (the reasons go to stderr), 5 when a fault stopped the service.
 /// </summary>
 internal static class RunVerb
 {

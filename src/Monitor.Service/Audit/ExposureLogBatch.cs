@@ -10,6 +10,7 @@ namespace Monitor.Service.Audit;
 public sealed class ExposureLogBatch
 {
     private readonly List<(string Kind, DateTimeOffset EventTime, ExposureLogCause Cause, JsonElement Payload)> _entries = [];
+    private readonly List<(long Seq, string Mac)> _records = [];
 
     public int Count => _entries.Count;
 
@@ -17,6 +18,11 @@ public sealed class ExposureLogBatch
     public int Written { get; internal set; }
 
     public bool IsComplete => Written == _entries.Count;
+
+    /// <summary>The seq and mac of each record of the batch written so far, in batch order.</summary>
+    public IReadOnlyList<(long Seq, string Mac)> Records => _records;
+
+    internal void AddWritten(long seq, string mac) => _records.Add((seq, mac));
 
     /// <summary>Adds a record; the payload is serialised now, so a payload that cannot be JSON fails here, before any write.</summary>
     /// <exception cref="ArgumentException">The payload cannot be written as JSON (NaN, infinity, a cycle).</exception>

@@ -13,10 +13,6 @@ internal static class ExposureLogFiles
 
     public static string PathOf(string folder, DateOnly day) => Path.Combine(folder, FileName(day));
 
-    /// <summary>Business day of a written time: date of (UTC + offset).</summary>
-    public static DateOnly DayOf(DateTimeOffset writtenTime, TimeSpan businessDayUtcOffset) =>
-        DateOnly.FromDateTime(writtenTime.UtcDateTime + businessDayUtcOffset);
-
     public static bool TryParseDay(string fileName, out DateOnly day)
     {
         day = default;

@@ -3,6 +3,7 @@ using System.Text.RegularExpressions;
 using Serilog;
 using Serilog.Core;
 using Serilog.Events;
+using Monitor.Service.Engine;
 using Monitor.Service.Storage;
 
 namespace Monitor.Service.Audit;
@@ -21,6 +22,7 @@ public sealed partial class ExposureLogWriter : IDisposable
     private readonly ExposureLogOptions _options;
     private readonly RecordKey _key;
     private readonly TimeProvider _time;
+    private readonly BusinessDayRoll _roll;
     private readonly DailyAuditFileSink _sink;
     private readonly DiskFlushControl _diskFlush = new();
     private readonly Logger _logger;
@@ -33,16 +35,16 @@ public sealed partial class ExposureLogWriter : IDisposable
     private ExposureLogWriteException? _lastError;
     private bool _disposed;
 
-    /// <summary>Opens the log in <see cref="ExposureLogOptions.Folder"/> and continues its chain where it stopped.</summary>
+    /// <summary>Opens the log in <see cref="ExposureLogOptions.Folder"/> and continues its chain where it stopped. Day files are named by the business date of <paramref name="roll"/> (default midnight UTC).</summary>
     /// <exception cref="ArgumentException">Invalid options (the message names the key).</exception>
     /// <exception cref="ExposureLogOpenException">The end of the chain cannot be read or fails its MAC.</exception>
-    public ExposureLogWriter(RecordKey key, ExposureLogOptions options, TimeProvider timeProvider)
-        : this(key, options, timeProvider, null)
+    public ExposureLogWriter(RecordKey key, ExposureLogOptions options, TimeProvider timeProvider, BusinessDayRoll? roll = null)
+        : this(key, options, timeProvider, null, roll)
     {
     }
 
     /// <summary>As the public constructor, plus a test seam: a decorator of each day file's stream (to inject write failures).</summary>
-    internal ExposureLogWriter(RecordKey key, ExposureLogOptions options, TimeProvider timeProvider, Func<Stream, Stream>? streamDecorator)
+    internal ExposureLogWriter(RecordKey key, ExposureLogOptions options, TimeProvider timeProvider, Func<Stream, Stream>? streamDecorator, BusinessDayRoll? roll = null)
     {
         ArgumentNullException.ThrowIfNull(key);
         ArgumentNullException.ThrowIfNull(options);
@@ -56,6 +58,7 @@ public sealed partial class ExposureLogWriter : IDisposable
         _options = options;
         _key = key;
         _time = timeProvider;
+        _roll = roll ?? BusinessDayRoll.UtcMidnight;
         ContinueChain();
         _sink = new DailyAuditFileSink(new ExposureLogFileHooks(options.FlushToDisk, streamDecorator, _diskFlush));
         _logger = new LoggerConfiguration().MinimumLevel.Verbose().AuditTo.Sink(_sink).CreateLogger();
@@ -167,7 +170,8 @@ public sealed partial class ExposureLogWriter : IDisposable
                 for (var i = batch.Written; i < batch.Count; i++)
                 {
                     var (kind, eventTime, cause, payload) = batch[i];
-                    Write(kind, eventTime, cause, payload);
+                    var record = Write(kind, eventTime, cause, payload);
+                    batch.AddWritten(record.Seq, record.Mac);
                     batch.Written = i + 1;
                 }
 
@@ -230,7 +234,7 @@ public sealed partial class ExposureLogWriter : IDisposable
     private ExposureLogRecord Write(string kind, DateTimeOffset eventTime, ExposureLogCause cause, JsonElement payload)
     {
         var written = _time.GetUtcNow();
-        var day = ExposureLogFiles.DayOf(written, _options.BusinessDayUtcOffset);
+        var day = _roll.BusinessDateOf(written);
         if (_lastDay is { } lastDay && day < lastDay)
         {
             day = lastDay; // the clock stepped back: never write behind the newest file, or the chain would run backwards

@@ -84,12 +84,7 @@ public sealed class RiskEngine
     /// </summary>
     public void DefineInstrument(Bond bond)
     {
-        ArgumentNullException.ThrowIfNull(bond);
-        CheckCurrency(bond);
-        if (_instruments.TryGetValue(bond.Id, out var existing) && !SameTerms(existing, bond) && IsHeld(bond.Id))
-        {
-            throw new MessageRejectedException("instrumentId", bond.Id, "is held in a book and its terms differ from the ones in use; amend reference data after the positions are closed.");
-        }
+        CheckDefinition(bond);
         var flows = bond.MaturityDate > ValuationDate ? bond.CashFlowsAfter(ValuationDate) : [];
         var key = CurveKey.Normalize(bond.SpreadGroup);
         if (!_registered.TryGetValue(bond.Id, out var registered) || !SameFlows(registered, key, flows))
@@ -106,6 +101,21 @@ public sealed class RiskEngine
         {
             _curves[key] = new CurveState(key) { Version = _versionFloors.GetValueOrDefault(key) };
         }
+    }
+
+    /// <summary>
+    /// Checks a definition without changing anything, so the caller can put it on record first: throws the refusal
+    /// <see cref="DefineInstrument"/> would; returns the definition in use (null for an instrument new to the engine).
+    /// </summary>
+    public Bond? CheckDefinition(Bond bond)
+    {
+        ArgumentNullException.ThrowIfNull(bond);
+        CheckCurrency(bond);
+        if (_instruments.TryGetValue(bond.Id, out var existing) && !SameTerms(existing, bond) && IsHeld(bond.Id))
+        {
+            throw new MessageRejectedException("instrumentId", bond.Id, "is held in a book and its terms differ from the ones in use; amend reference data after the positions are closed.");
+        }
+        return existing;
     }
 
     /// <summary>

@@ -19,6 +19,8 @@ public static class BrokerConnection
         {
             h.Username(credentials.User);
             h.Password(credentials.Password);
+            // A publish completes only when the broker has confirmed it: the outbox records confirmations by that (its default, set on purpose).
+            h.PublisherConfirmation = true;
             if (broker.UseTls)
             {
                 h.UseSsl(s =>

@@ -43,7 +43,7 @@ public static class EngineFactory
 
     public static EngineSettings Settings(MonitorOptions options, TimeProvider time) => new()
     {
-        ValuationDate = options.ValuationDate ?? SpotDate(DateOnly.FromDateTime(time.GetUtcNow().UtcDateTime)),
+        ValuationDate = options.ValuationDate ?? SpotDate(options.BusinessDay.ToRoll().BusinessDateOf(time.GetUtcNow())),
         BaseFit = new CurveFitOptions { Model = options.BaseCurveModel },
         SpreadFit = new CurveFitOptions { Model = CurveModel.NelsonSiegel },
         BaseGate = new FitQualityGate(options.BaseMaxRmseBp, options.BaseMaxErrorBp, options.BaseMinQuotes),

@@ -26,8 +26,11 @@ public sealed class MonitorOptions
     /// </summary>
     public string ReportingCurrency { get; set; } = "XTS";
 
-    /// <summary>Valuation (spot) date; default the next business day after today's UTC date.</summary>
+    /// <summary>Valuation (spot) date; default the next business day after today's business date (<see cref="BusinessDay"/>).</summary>
     public DateOnly? ValuationDate { get; set; }
+
+    /// <summary>When the business day rolls (time of day and IANA time zone); default midnight UTC.</summary>
+    public BusinessDayOptions BusinessDay { get; set; } = new();
 
     /// <summary>Model of the government curve: NelsonSiegel (default) or Svensson. Spread curves are always Nelson-Siegel.</summary>
     public CurveModel BaseCurveModel { get; set; } = CurveModel.NelsonSiegel;

@@ -13,6 +13,7 @@ public sealed class MonitorOptionsValidator : IValidateOptions<MonitorOptions>
         RequireFile(failures, "Monitor:LimitsFile", options.LimitsFile, required: true);
         RequireFile(failures, "Monitor:PositionsFile", options.PositionsFile, required: false);
         RequireFile(failures, "Monitor:OpeningQuotesFile", options.OpeningQuotesFile, required: false);
+        failures.AddRange(options.BusinessDay.Validate());
         if (options.ReportingCurrency is null || options.ReportingCurrency.Length != 3 || !options.ReportingCurrency.All(char.IsAsciiLetterUpper))
         {
             failures.Add($"Monitor:ReportingCurrency: '{options.ReportingCurrency}' is not an ISO 4217 code; use three capital letters, e.g. EUR.");

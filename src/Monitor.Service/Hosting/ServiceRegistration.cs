@@ -69,6 +69,19 @@ public static class ServiceRegistration
                     journal.Folder = log.Value.Folder.TrimEnd('/', '\\') + "-journal";
                 }
             });
+        // One business-day roll (Monitor:BusinessDay) names the journal's and the log's day files and closes the day.
+        services.AddSingleton(sp =>
+        {
+            foreach (var retired in new[] { "ExposureLog:BusinessDayUtcOffset", "Journal:BusinessDayUtcOffset" })
+            {
+                if (configuration[retired] is not null)
+                {
+                    throw new OptionsValidationException(retired, typeof(BusinessDayOptions),
+                        [$"{retired}: no longer read; the business day is set once by Monitor:BusinessDay:RollTime and Monitor:BusinessDay:TimeZone (IANA). Remove the key."]);
+                }
+            }
+            return sp.GetRequiredService<IOptions<MonitorOptions>>().Value.BusinessDay.ToRoll();
+        });
         AddRetention(services, configuration);
         // One writer per folder: taken before the journal is replayed or either folder written, held until disposal.
         services.AddSingleton(sp => new WriterLocks(sp.GetRequiredService<IOptions<ExposureLogOptions>>().Value.Folder, sp.GetRequiredService<IOptions<JournalOptions>>().Value.Folder));
@@ -78,13 +91,21 @@ public static class ServiceRegistration
             sp.GetRequiredService<RecordKey>(),
             sp.GetRequiredService<IOptions<JournalOptions>>().Value,
             sp.GetRequiredService<IOptions<ExposureLogOptions>>().Value,
+            sp.GetRequiredService<BusinessDayRoll>(),
+            sp.GetRequiredService<IOptions<MonitorOptions>>().Value.PositionsFile,
             sp.GetRequiredService<TimeProvider>().GetUtcNow())));
         services.AddSingleton(sp => sp.GetRequiredService<EngineRecovery>().Engine);
-        services.AddSingleton(sp => AfterWriterLocks(sp, () => new TradeJournal(sp.GetRequiredService<RecordKey>(), sp.GetRequiredService<IOptions<JournalOptions>>().Value, sp.GetRequiredService<TimeProvider>())));
-        services.AddSingleton(sp => AfterWriterLocks(sp, () => new ExposureLogWriter(sp.GetRequiredService<RecordKey>(), sp.GetRequiredService<IOptions<ExposureLogOptions>>().Value, sp.GetRequiredService<TimeProvider>())));
+        services.AddSingleton(sp => AfterWriterLocks(sp, () => new TradeJournal(sp.GetRequiredService<RecordKey>(), sp.GetRequiredService<IOptions<JournalOptions>>().Value, sp.GetRequiredService<TimeProvider>(), sp.GetRequiredService<BusinessDayRoll>())));
+        services.AddSingleton(sp => AfterWriterLocks(sp, () => new ExposureLogWriter(sp.GetRequiredService<RecordKey>(), sp.GetRequiredService<IOptions<ExposureLogOptions>>().Value, sp.GetRequiredService<TimeProvider>(), sp.GetRequiredService<BusinessDayRoll>())));
         // Every exposure log and journal append of the pipeline runs through the gate: a storage failure stalls, never faults a message.
         services.AddSingleton<StorageFaultGate>();
         services.AddSingleton<QuoteInbox>();
+        // Events with a log record wait in <ExposureLog:Folder>-outbox until the broker confirms them.
+        services.AddSingleton(sp =>
+        {
+            var log = sp.GetRequiredService<IOptions<ExposureLogOptions>>().Value;
+            return new OutboxFile(log.Folder.TrimEnd('/', '\\') + "-outbox", log.FlushToDisk);
+        });
         services.AddSingleton<EventOutbox>();
         services.AddSingleton<RiskPipeline>();
         services.AddSingleton<LimitsFileStatus>();
@@ -131,12 +152,16 @@ public static class ServiceRegistration
         // Started after the bus, in this order: the outbox, opening curves, then the refit loop and the snapshots.
         // Hosted services stop in reverse order, the bus last: the outbox drains while the broker is still connected.
         services.AddHostedService(sp => sp.GetRequiredService<EventOutbox>());
-        // Second, so it stops just before the outbox: its stop checkpoint comes after the day-end records and is still published.
+        // Second, so it stops just before the outbox: its stop checkpoint comes after the stop records (stop-snapshot, service-stopped) and is still published.
         services.AddHostedService<CheckpointWorker>();
         services.AddHostedService<StartOfDayService>();
         services.AddHostedService<RetentionAtStart>();
         services.AddHostedService<CurveRefitWorker>();
         services.AddHostedService<SnapshotWorker>();
+        // The day's close at the roll, then its listeners in this order: a day-close checkpoint of the log, then retention for the new day.
+        services.AddSingleton<IDayCloseListener, CheckpointAtDayClose>();
+        services.AddSingleton<IDayCloseListener, RetentionAtDayClose>();
+        services.AddHostedService<DayCloseWorker>();
         services.AddHostedService<LimitsFileWatcher>();
         services.AddHostedService<LimitExpiryWorker>();
         services.AddHealthChecks()
@@ -172,7 +197,7 @@ public static class ServiceRegistration
             .ValidateOnStart();
         services.AddSingleton<IValidateOptions<RetentionOptions>>(sp => new RetentionOptionsValidator(() =>
             (sp.GetRequiredService<IOptions<ExposureLogOptions>>().Value.Folder, sp.GetRequiredService<IOptions<JournalOptions>>().Value.Folder)));
-        services.TryAddSingleton<IClosedDays>(sp => new DayEndRecordClosedDays(sp.GetRequiredService<IOptions<ExposureLogOptions>>().Value.Folder, sp.GetRequiredService<RecordKey>()));
+        services.TryAddSingleton<IClosedDays>(sp => new DayEndRecordClosedDays(sp.GetRequiredService<IOptions<ExposureLogOptions>>().Value.Folder, sp.GetRequiredService<RecordKey>(), sp.GetRequiredService<IOptions<JournalOptions>>().Value.Folder));
         services.AddSingleton(sp => new DayFileRetention(
             sp.GetRequiredService<IOptions<RetentionOptions>>().Value,
             sp.GetRequiredService<IOptions<ExposureLogOptions>>().Value.Folder,

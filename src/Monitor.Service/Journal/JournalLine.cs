@@ -10,7 +10,7 @@ namespace Monitor.Service.Journal;
 
 /// <summary>
 /// Writes and reads one line of the journal format trade-journal/2 (see README.md in this folder): a JSON object
-/// <c>{"format","seq","kind","writtenTime","trade"|"quote","prevMac","mac"}</c> where <c>mac</c> is the HMAC-SHA256
+/// <c>{"format","seq","kind","writtenTime","trade"|"quote"|"instrument","prevMac","mac"}</c> where <c>mac</c> is the HMAC-SHA256
 /// (RFC 2104) under the record key of the line with the <c>,"mac":"…"</c> member cut out, and <c>prevMac</c> the mac of
 /// the line before in the same day file (64 zeros for the first). The MAC is over bytes, so a reader never re-serialises.
 /// </summary>
@@ -63,6 +63,15 @@ internal static class JournalLine
             w.WriteEndObject();
         });
 
+    /// <summary>An accepted instrument definition (kind <c>instrument</c>), journalled before it changes the engine.</summary>
+    public static byte[] Definition(RecordKey key, long seq, DateTimeOffset writtenTime, Analytics.Instruments.Bond bond, string prevMac) =>
+        Build(key, seq, "instrument", writtenTime, prevMac, w =>
+        {
+            w.WriteStartObject("instrument");
+            BondTerms.Write(w, bond);
+            w.WriteEndObject();
+        });
+
     /// <summary>
     /// Reads one line (without its LF) and checks its MAC under <paramref name="key"/>. Returns null and a reason when the
     /// line cannot be used; <paramref name="tradeId"/> is the line's trade id whenever it can be read, even from a bad line.
@@ -111,9 +120,11 @@ internal static class JournalLine
                     var quote = new BondQuote(Text(q, "instrumentId"), ReadTime(q, "quoteTime"), Optional(q, "bid"), Optional(q, "ask"),
                         Optional(q, "mid"), Optional(q, "yield"), q.TryGetProperty("source", out var s) ? s.GetString() : null);
                     return new JournalRecord(seq, written, null, quote) { PrevMac = prevMac, Mac = stored };
+                case "instrument":
+                    return new JournalRecord(seq, written, null, null, BondTerms.Read(root.GetProperty("instrument"))) { PrevMac = prevMac, Mac = stored };
                 default:
                     problem = JournalProblemKind.Unparsable;
-                    detail = $"kind '{kind}' is not 'trade' or 'quote'.";
+                    detail = $"kind '{kind}' is not 'trade', 'quote' or 'instrument'.";
                     return null;
             }
         }

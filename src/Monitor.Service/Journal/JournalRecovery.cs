@@ -4,9 +4,10 @@ using Monitor.Service.Messaging;
 namespace Monitor.Service.Journal;
 
 /// <summary>
-/// Replays a day's journal into an engine that holds the start-of-day state (instruments, positions): the trades
-/// in journal order through <see cref="RiskEngine.ApplyTrade"/> (idempotent thanks to the versions: a trade
-/// already in the engine is a duplicate), then the kept quotes through <see cref="RiskEngine.AcceptQuote"/> and
+/// Replays journal days into an engine that holds the start-of-day state (instruments, positions): the trades and
+/// instrument definitions in journal order through <see cref="RiskEngine.ApplyTrade"/> (idempotent thanks to the
+/// versions: a trade already in the engine is a duplicate) and <see cref="RiskEngine.DefineInstrument"/>; a refusal of
+/// either stops the start (<see cref="JournalReplayRefusedException"/>, naming the file, seq, id and reason); then the kept quotes through <see cref="RiskEngine.AcceptQuote"/> and
 /// one <see cref="RiskEngine.RefitDirtyCurves"/>. Pure: uses only the engine's public methods, no I/O, no clock.
 /// </summary>
 public static class JournalRecovery
@@ -16,10 +17,24 @@ public static class JournalRecovery
         ArgumentNullException.ThrowIfNull(engine);
         ArgumentNullException.ThrowIfNull(contents);
         int applied = 0, duplicates = 0, superseded = 0, quotes = 0;
-        var rejectedTrades = new List<string>();
+        var definitions = 0;
         var rejectedQuotes = new List<string>();
-        foreach (var trade in contents.Trades)
+        foreach (var change in contents.Changes)
         {
+            if (change.Definition is { } bond)
+            {
+                try
+                {
+                    engine.DefineInstrument(bond);
+                    definitions++;
+                }
+                catch (MessageRejectedException ex)
+                {
+                    throw new JournalReplayRefusedException(change.File, change.Seq, $"instrument definition {bond.Id}", ex.Message, ex);
+                }
+                continue;
+            }
+            var trade = change.Trade!;
             try
             {
                 switch (engine.ApplyTrade(trade, now).Trade)
@@ -37,8 +52,8 @@ public static class JournalRecovery
             }
             catch (MessageRejectedException ex)
             {
-                // Accepted when journalled, refused now: the start-of-day files changed (e.g. a book left the limits file).
-                rejectedTrades.Add($"trade {trade.TradeId} v{trade.Version}: {ex.Message}");
+                // Accepted when journalled, refused now: the start-of-day files changed (e.g. a book left the limits file). Fail closed.
+                throw new JournalReplayRefusedException(change.File, change.Seq, $"trade {trade.TradeId} v{trade.Version}", ex.Message, ex);
             }
         }
         foreach (var quote in contents.LatestQuotes.Values.OrderBy(q => q.InstrumentId, StringComparer.Ordinal))
@@ -55,6 +70,6 @@ public static class JournalRecovery
             }
         }
         var refit = engine.RefitDirtyCurves(now);
-        return new JournalRecoveryResult(applied, duplicates, superseded, rejectedTrades, quotes, rejectedQuotes, refit);
+        return new JournalRecoveryResult(applied, duplicates, superseded, definitions, quotes, rejectedQuotes, refit);
     }
 }

@@ -15,6 +15,10 @@ public static class JournalReplay
 {
     public static JournalContents Read(RecordKey key, string folder, DateOnly day) => ReadFile(key, JournalFiles.PathOf(folder, day));
 
+    /// <summary>Every day file of the folder from <paramref name="firstDay"/> on, oldest first, read as one.</summary>
+    public static JournalContents ReadFrom(RecordKey key, string folder, DateOnly firstDay, DateOnly today) =>
+        JournalContents.Join([.. JournalFiles.List(folder).Where(f => f.Day >= firstDay).Select(f => ReadFile(key, f.Path))], JournalFiles.PathOf(folder, today));
+
     public static JournalContents ReadFile(RecordKey key, string path)
     {
         ArgumentNullException.ThrowIfNull(path);
@@ -34,7 +38,7 @@ public static class JournalReplay
     internal static JournalContents Parse(RecordKey key, string path, ReadOnlySpan<byte> bytes)
     {
         var name = System.IO.Path.GetFileName(path);
-        var trades = new List<TradeInput>();
+        var changes = new List<JournalRecord>();
         var quotes = new Dictionary<string, BondQuote>(StringComparer.Ordinal);
         var problems = new List<JournalProblem>();
         long lastSeq = 0;
@@ -71,9 +75,9 @@ public static class JournalReplay
                 }
                 lastSeq = record.Seq;
                 lastMac = record.Mac;
-                if (record.Trade is { } trade)
+                if (record.Trade is not null || record.Definition is not null)
                 {
-                    trades.Add(trade);
+                    changes.Add(record with { File = name });
                 }
                 else if (record.Quote is { } quote
                     && (!quotes.TryGetValue(quote.InstrumentId, out var kept) || kept.QuoteTime <= quote.QuoteTime))
@@ -84,6 +88,6 @@ public static class JournalReplay
             offset += end + 1;
         }
         var complete = bytes.LastIndexOf((byte)'\n') + 1;
-        return new JournalContents(path, trades, quotes, problems, lastSeq, complete) { LastMac = lastMac };
+        return new JournalContents(path, changes, quotes, problems, lastSeq, complete) { LastMac = lastMac }.WithDays([path]);
     }
 }

@@ -32,6 +32,20 @@ public static class LoggedTrades
         return keys;
     }
 
+    /// <summary>The trade-applied records of the business days <paramref name="firstDay"/> to <paramref name="lastDay"/> (files that exist).</summary>
+    public static HashSet<(string TradeId, int Version)> ReadDays(string exposureLogFolder, DateOnly firstDay, DateOnly lastDay)
+    {
+        var keys = new HashSet<(string, int)>();
+        foreach (var (day, path) in ExposureLogFiles.List(exposureLogFolder))
+        {
+            if (day >= firstDay && day <= lastDay)
+            {
+                ReadFile(path, keys);
+            }
+        }
+        return keys;
+    }
+
     private static void ReadFile(string path, HashSet<(string, int)> keys)
     {
         using var stream = new FileStream(path, FileMode.Open, FileAccess.Read, FileShare.ReadWrite | FileShare.Delete);

@@ -19,8 +19,8 @@ namespace Monitor.Service.Journal;
 public sealed class TradeJournal : IAsyncDisposable
 {
     private readonly string _folder;
+    private readonly BusinessDayRoll _roll;
     private readonly RecordKey _key;
-    private readonly TimeSpan _dayOffset;
     private readonly int _maxBatch;
     private readonly TimeProvider _time;
     private readonly Channel<Entry> _queue = Channel.CreateUnbounded<Entry>(new UnboundedChannelOptions { SingleReader = true });
@@ -41,7 +41,7 @@ public sealed class TradeJournal : IAsyncDisposable
     /// <summary>How long quotes of a failed batch wait for a retry when no other append comes.</summary>
     internal static readonly TimeSpan QuoteRetryDelay = TimeSpan.FromSeconds(1);
 
-    public TradeJournal(RecordKey key, JournalOptions options, TimeProvider time)
+    public TradeJournal(RecordKey key, JournalOptions options, TimeProvider time, BusinessDayRoll? roll = null)
     {
         ArgumentNullException.ThrowIfNull(key);
         ArgumentNullException.ThrowIfNull(options);
@@ -55,8 +55,8 @@ public sealed class TradeJournal : IAsyncDisposable
             throw new ArgumentException($"Journal:MaxBatch {options.MaxBatch} must be 1 or more.", nameof(options));
         }
         _folder = options.Folder;
+        _roll = roll ?? BusinessDayRoll.UtcMidnight;
         _key = key;
-        _dayOffset = options.BusinessDayUtcOffset;
         _maxBatch = options.MaxBatch;
         _time = time;
         _loop = Task.Run(RunAsync);
@@ -99,6 +99,18 @@ public sealed class TradeJournal : IAsyncDisposable
         ArgumentNullException.ThrowIfNull(trade);
         var done = new TaskCompletionSource(TaskCreationOptions.RunContinuationsAsynchronously);
         if (!_queue.Writer.TryWrite(new Entry(trade, null, done)))
+        {
+            throw new ObjectDisposedException(nameof(TradeJournal));
+        }
+        return new ValueTask(cancellationToken.CanBeCanceled ? done.Task.WaitAsync(cancellationToken) : done.Task);
+    }
+
+    /// <summary>As <see cref="AppendTradeAsync"/> for an accepted instrument definition (line kind <c>instrument</c>).</summary>
+    public ValueTask AppendDefinitionAsync(Analytics.Instruments.Bond bond, CancellationToken cancellationToken = default)
+    {
+        ArgumentNullException.ThrowIfNull(bond);
+        var done = new TaskCompletionSource(TaskCreationOptions.RunContinuationsAsynchronously);
+        if (!_queue.Writer.TryWrite(new Entry(null, null, done) { Definition = bond }))
         {
             throw new ObjectDisposedException(nameof(TradeJournal));
         }
@@ -183,7 +195,7 @@ public sealed class TradeJournal : IAsyncDisposable
     private void WriteBatch(List<Entry> batch)
     {
         var now = _time.GetUtcNow();
-        var path = JournalFiles.PathOf(_folder, JournalFiles.DayOf(now, _dayOffset));
+        var path = JournalFiles.PathOf(_folder, _roll.BusinessDateOf(now));
         var seq = _seq;
         var mac = _lastMac;
         var written = 0L;
@@ -196,12 +208,14 @@ public sealed class TradeJournal : IAsyncDisposable
             foreach (var entry in batch)
             {
                 durable |= entry.Done is not null;
-                if (entry.Trade is null && entry.Quote is null)
+                if (entry.Trade is null && entry.Quote is null && entry.Definition is null)
                 {
                     continue; // a flush request: no line of its own
                 }
                 seq++;
-                var line = entry.Trade is { } trade ? JournalLine.Trade(_key, seq, now, trade, mac) : JournalLine.Quote(_key, seq, now, entry.Quote!, mac);
+                var line = entry.Trade is { } trade ? JournalLine.Trade(_key, seq, now, trade, mac)
+                    : entry.Definition is { } bond ? JournalLine.Definition(_key, seq, now, bond, mac)
+                    : JournalLine.Quote(_key, seq, now, entry.Quote!, mac);
                 mac = JournalLine.MacIn(line);
                 _stream!.Write(line);
                 written += line.Length;
@@ -313,5 +327,8 @@ public sealed class TradeJournal : IAsyncDisposable
         }
     }
 
-    private sealed record Entry(TradeInput? Trade, BondQuote? Quote, TaskCompletionSource? Done);
+    private sealed record Entry(TradeInput? Trade, BondQuote? Quote, TaskCompletionSource? Done)
+    {
+        public Analytics.Instruments.Bond? Definition { get; init; }
+    }
 }

@@ -35,6 +35,8 @@ public sealed partial class EventOutbox : BackgroundService
     private static readonly TimeSpan LongestRetry = TimeSpan.FromSeconds(5);
 
     private readonly IBus _bus;
+    private readonly OutboxFile? _durable;
+    private bool _confirmFailing;
     private readonly MonitorMetrics _metrics;
     private readonly TimeProvider _time;
     private readonly ILogger<EventOutbox> _logger;
@@ -51,9 +53,11 @@ public sealed partial class EventOutbox : BackgroundService
     private string? _lastError;
     private DateTimeOffset? _failingSince;
 
-    public EventOutbox(IBus bus, IOptions<MonitorOptions> options, MonitorMetrics metrics, TimeProvider time, ILogger<EventOutbox> logger)
+    /// <summary>An outbox; <paramref name="durable"/> keeps the events with a log record until the broker confirms them (null: in memory only).</summary>
+    public EventOutbox(IBus bus, IOptions<MonitorOptions> options, MonitorMetrics metrics, TimeProvider time, ILogger<EventOutbox> logger, OutboxFile? durable = null)
     {
         ArgumentNullException.ThrowIfNull(options);
+        _durable = durable;
         _bus = bus;
         _metrics = metrics;
         _time = time;
@@ -76,7 +80,10 @@ public sealed partial class EventOutbox : BackgroundService
     /// Queues one change's events (in order after every earlier change's) and its books' new figures. Waits only when
     /// the queue is full, which holds the caller's lock: back-pressure during a long broker outage.
     /// </summary>
-    public ValueTask EnqueueAsync(IReadOnlyList<object> events, IReadOnlyList<BookFigures> books, CancellationToken cancellationToken)
+    public ValueTask EnqueueAsync(IReadOnlyList<object> events, IReadOnlyList<BookFigures> books, CancellationToken cancellationToken) =>
+        EnqueueAsync(events, books, cancellationToken, null, 0);
+
+    private ValueTask EnqueueAsync(IReadOnlyList<object> events, IReadOnlyList<BookFigures> books, CancellationToken cancellationToken, Guid?[]? ids, long confirmSeq)
     {
         ArgumentNullException.ThrowIfNull(events);
         ArgumentNullException.ThrowIfNull(books);
@@ -92,9 +99,40 @@ public sealed partial class EventOutbox : BackgroundService
         }
         else if (books.Count > 0)
         {
+            var recorded = events.Count;
             events = [.. events, .. Batches(books)];
+            if (ids is not null)
+            {
+                ids = [.. ids, .. new Guid?[events.Count - recorded]];
+            }
         }
-        return events.Count == 0 ? ValueTask.CompletedTask : WriteAsync(events, cancellationToken);
+        return events.Count == 0 ? ValueTask.CompletedTask : WriteAsync(new QueuedChange(events, Stopwatch.GetTimestamp(), ids, confirmSeq), cancellationToken);
+    }
+
+    /// <summary>
+    /// Queues one change's events that have records in the exposure log, kept first in the <see cref="OutboxFile"/>
+    /// (under the pipeline's storage gate: the caller passes the write) with their stable ids, and its books' figures.
+    /// Once the broker has confirmed them all, the confirmation is recorded; at the next start any not confirmed are
+    /// published again with the same ids.
+    /// </summary>
+    public async ValueTask EnqueueRecordedAsync(IReadOnlyList<OutboxEntry> events, IReadOnlyList<BookFigures> books, Func<Action, Task> keep, CancellationToken cancellationToken)
+    {
+        ArgumentNullException.ThrowIfNull(events);
+        ArgumentNullException.ThrowIfNull(keep);
+        if (_durable is { } durable && events.Count > 0)
+        {
+            await keep(() => durable.Append(events)).ConfigureAwait(false);
+        }
+        var messages = events.Select(e => e.Message).ToArray();
+        if (events.Count > 0)
+        {
+            // The ids ride with the messages into the queue; books (no record, conflated) keep MassTransit's own ids.
+            await EnqueueAsync(messages, books, cancellationToken, [.. events.Select(e => (Guid?)e.Id)], events[^1].Seq).ConfigureAwait(false);
+        }
+        else
+        {
+            await EnqueueAsync(messages, books, cancellationToken).ConfigureAwait(false);
+        }
     }
 
     /// <summary>Completes when every change queued so far has been published (book figures waiting for their interval included).</summary>
@@ -105,6 +143,25 @@ public sealed partial class EventOutbox : BackgroundService
         {
             await Task.Delay(TimeSpan.FromMilliseconds(5), cancellationToken).ConfigureAwait(false);
         }
+    }
+
+    public override Task StartAsync(CancellationToken cancellationToken)
+    {
+        if (_durable is not null)
+        {
+            // Events of an earlier run whose records are in the log but which the broker never confirmed: first in line.
+            var waiting = _durable.Unconfirmed();
+            foreach (var entry in waiting)
+            {
+                Interlocked.Increment(ref _backlog);
+                _queue.Writer.TryWrite(new QueuedChange([entry.Message], Stopwatch.GetTimestamp(), [entry.Id], entry.Seq));
+            }
+            if (waiting.Count > 0)
+            {
+                LogRepublishing(waiting.Count, waiting[0].Seq, waiting[^1].Seq);
+            }
+        }
+        return base.StartAsync(cancellationToken);
     }
 
     public override async Task StopAsync(CancellationToken cancellationToken)
@@ -128,7 +185,11 @@ public sealed partial class EventOutbox : BackgroundService
         {
             await foreach (var change in _queue.Reader.ReadAllAsync(stoppingToken).ConfigureAwait(false))
             {
-                await PublishAsync(change.Events, stoppingToken).ConfigureAwait(false);
+                await PublishAsync(change.Events, change.Ids, stoppingToken).ConfigureAwait(false);
+                if (change.ConfirmSeq > 0 && _durable is { } durable)
+                {
+                    RecordConfirmation(durable, change.ConfirmSeq);
+                }
                 Interlocked.Decrement(ref _backlog);
                 _metrics.EventDelay.Record(Stopwatch.GetElapsedTime(change.QueuedAt).TotalMilliseconds);
             }
@@ -140,10 +201,19 @@ public sealed partial class EventOutbox : BackgroundService
         await books.ConfigureAwait(false);
     }
 
-    private ValueTask WriteAsync(IReadOnlyList<object> events, CancellationToken cancellationToken)
+    private void RecordConfirmation(OutboxFile durable, long seq)
+    {
+        var failure = durable.Confirm(seq);
+        if (failure is not null && !_confirmFailing)
+        {
+            LogConfirmationNotRecorded(failure); // at worst the next start publishes these events again (same ids)
+        }
+        _confirmFailing = failure is not null;
+    }
+
+    private ValueTask WriteAsync(QueuedChange change, CancellationToken cancellationToken)
     {
         Interlocked.Increment(ref _backlog);
-        var change = new QueuedChange(events, Stopwatch.GetTimestamp());
         if (_queue.Writer.TryWrite(change))
         {
             return ValueTask.CompletedTask;
@@ -198,7 +268,7 @@ public sealed partial class EventOutbox : BackgroundService
             // One batch at a time: the next limit event waits behind at most one batch in the broker connection.
             foreach (var batch in Batches(due.Values))
             {
-                await PublishAsync([batch], cancellationToken).ConfigureAwait(false);
+                await PublishAsync([batch], null, cancellationToken).ConfigureAwait(false);
             }
         }
         finally
@@ -216,16 +286,19 @@ public sealed partial class EventOutbox : BackgroundService
     }
 
     /// <summary>Publishes one change's messages together, retrying those the broker did not confirm until all are through.</summary>
-    private async Task PublishAsync(IReadOnlyList<object> messages, CancellationToken stoppingToken)
+    private async Task PublishAsync(IReadOnlyList<object> messages, IReadOnlyList<Guid?>? ids, CancellationToken stoppingToken)
     {
         var waiting = messages;
+        var waitingIds = ids;
         var pause = FirstRetry;
         while (true)
         {
             var sends = new Task[waiting.Count];
             for (var i = 0; i < waiting.Count; i++)
             {
-                sends[i] = _bus.Publish(waiting[i], waiting[i].GetType(), stoppingToken);
+                sends[i] = waitingIds?[i] is { } id
+                    ? _bus.Publish(waiting[i], waiting[i].GetType(), Pipe.Execute<PublishContext>(c => c.MessageId = id), stoppingToken)
+                    : _bus.Publish(waiting[i], waiting[i].GetType(), stoppingToken);
             }
             try
             {
@@ -236,6 +309,7 @@ public sealed partial class EventOutbox : BackgroundService
                 // Looked at per message below: some of the change's messages may have gone through.
             }
             var failed = new List<object>();
+            var failedIds = new List<Guid?>();
             Exception? error = null;
             for (var i = 0; i < sends.Length; i++)
             {
@@ -246,6 +320,7 @@ public sealed partial class EventOutbox : BackgroundService
                 else
                 {
                     failed.Add(waiting[i]);
+                    failedIds.Add(waitingIds?[i]);
                     error ??= sends[i].Exception?.GetBaseException();
                 }
             }
@@ -259,6 +334,7 @@ public sealed partial class EventOutbox : BackgroundService
             await Task.Delay(pause, _time, stoppingToken).ConfigureAwait(false);
             pause = TimeSpan.FromTicks(Math.Min(pause.Ticks * 2, LongestRetry.Ticks));
             waiting = failed;
+            waitingIds = waitingIds is null ? null : failedIds;
         }
     }
 
@@ -288,14 +364,23 @@ public sealed partial class EventOutbox : BackgroundService
         }
     }
 
-    /// <summary>One change's events and when they were handed over (<see cref="Stopwatch.GetTimestamp"/>: durations are real time, whatever the clock).</summary>
-    private readonly record struct QueuedChange(IReadOnlyList<object> Events, long QueuedAt);
+    /// <summary>
+    /// One change's events and when they were handed over (<see cref="Stopwatch.GetTimestamp"/>: durations are real time,
+    /// whatever the clock); the stable ids of those with a log record, and the seq to record as confirmed (0: none).
+    /// </summary>
+    private readonly record struct QueuedChange(IReadOnlyList<object> Events, long QueuedAt, IReadOnlyList<Guid?>? Ids = null, long ConfirmSeq = 0);
 
     [LoggerMessage(Level = LogLevel.Error, Message = "Publishing events failed ({Count} waiting): {Reason}; retrying until the broker confirms them")]
     private partial void LogPublishingFailed(int count, string reason);
 
     [LoggerMessage(Level = LogLevel.Information, Message = "Publishing events recovered after {Outage}")]
     private partial void LogPublishingRecovered(TimeSpan outage);
+
+    [LoggerMessage(Level = LogLevel.Warning, Message = "Publishing {Count} event(s) of an earlier run again (records seq {First}..{Last}): the broker never confirmed them; consumers drop duplicates by MessageId")]
+    private partial void LogRepublishing(int count, long first, long last);
+
+    [LoggerMessage(Level = LogLevel.Warning, Message = "A broker confirmation could not be recorded ({Failure}); after a restart those events are published again")]
+    private partial void LogConfirmationNotRecorded(string failure);
 
     [LoggerMessage(Level = LogLevel.Warning, Message = "The event queue is full ({Capacity} changes); the pipeline waits for the broker")]
     private partial void LogQueueFull(int capacity);

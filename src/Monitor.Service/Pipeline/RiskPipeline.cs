@@ -35,7 +35,7 @@ public sealed partial class RiskPipeline
     private readonly MonitorMetrics _metrics;
     private readonly TimeProvider _time;
     private readonly ILogger<RiskPipeline> _logger;
-    // Never disposed: the day-end snapshot runs while the host stops, whatever order the container disposes in
+    // Never disposed: the stop record is written while the host stops, whatever order the container disposes in
     // (a SemaphoreSlim whose wait handle is never read holds no unmanaged resource).
     private readonly SemaphoreSlim _gate = new(1, 1);
     private readonly Channel<bool> _refitSignal = Channel.CreateBounded<bool>(new BoundedChannelOptions(1) { FullMode = BoundedChannelFullMode.DropWrite });
@@ -71,11 +71,31 @@ public sealed partial class RiskPipeline
         }
     }
 
-    public async Task DefineInstrumentAsync(Bond bond, CancellationToken cancellationToken)
+    /// <summary>
+    /// Defines or redefines an instrument. A refusal throws before anything changes; an accepted definition that changes
+    /// anything is journalled (fsynced) and logged (<c>instrument-defined</c>, the old and the new definition) before
+    /// the engine takes it, so a restart replays it in order with the trades. One equal in every member changes nothing.
+    /// </summary>
+    public async Task DefineInstrumentAsync(Bond bond, Cause cause, CancellationToken cancellationToken)
     {
+        ArgumentNullException.ThrowIfNull(bond);
+        ArgumentNullException.ThrowIfNull(cause);
         await _gate.WaitAsync(cancellationToken).ConfigureAwait(false);
         try
         {
+            var previous = _engine.CheckDefinition(bond);
+            if (previous is not null && BondTerms.Same(previous, bond))
+            {
+                return;
+            }
+            await _storage.RunAsync(StorageFaultGate.TradeJournal, _ => _journal.AppendDefinitionAsync(bond, CancellationToken.None).AsTask(), cancellationToken).ConfigureAwait(false);
+            var payload = new Dictionary<string, object?>
+            {
+                ["instrumentId"] = bond.Id,
+                ["previous"] = previous is null ? null : new Dictionary<string, object?>(BondTerms.ToDictionary(previous)),
+                ["definition"] = new Dictionary<string, object?>(BondTerms.ToDictionary(bond)),
+            };
+            await _storage.RunAsync(StorageFaultGate.ExposureLog, () => _log.Append(ExposureLogKinds.InstrumentDefined, cause.EventTime, LogCause(cause), payload), cancellationToken).ConfigureAwait(false);
             _engine.DefineInstrument(bond);
         }
         finally
@@ -278,27 +298,15 @@ public sealed partial class RiskPipeline
         }
     }
 
-    /// <summary>Writes a snapshot of every valued book to the exposure log (periodic and end of day).</summary>
+    /// <summary>Writes a snapshot of every valued book to the exposure log (the periodic <c>snapshot</c>).</summary>
     public async Task SnapshotAsync(string kind, CancellationToken cancellationToken)
     {
-        if (kind == ExposureLogKinds.DayEnd && _storage.IsFailing)
-        {
-            // Stopping during a storage outage: the lock is held by a stalled write and the snapshot could not be written.
-            LogDayEndSkipped(string.Join("; ", _storage.Faults));
-            return;
-        }
         await _gate.WaitAsync(cancellationToken).ConfigureAwait(false);
         try
         {
             var now = _time.GetUtcNow();
-            var curves = _engine.CurvesInUse();
             var batch = new ExposureLogBatch();
-            foreach (var book in _engine.Books.Values.Where(b => b.Exposures is not null).OrderBy(b => b.Id, StringComparer.Ordinal))
-            {
-                var payload = BookPayload(book.Id, book.Exposures!.Totals, curves);
-                AddProvisional(payload, book.ProvisionalReasons);
-                batch.Add(kind, now, new ExposureLogCause(null, "timer"), payload);
-            }
+            AddBookSnapshots(batch, kind, now, null);
             await WriteLogAsync(batch, cancellationToken).ConfigureAwait(false);
         }
         finally
@@ -307,16 +315,90 @@ public sealed partial class RiskPipeline
         }
     }
 
+    /// <summary>
+    /// Closes business day <paramref name="day"/>: each valued book's <c>close-snapshot</c>, then one <c>day-closed</c>
+    /// record, in one write. Returns the close with that record's seq and mac (for <see cref="IDayCloseListener"/>s).
+    /// </summary>
+    public async Task<DayClose> CloseDayAsync(DateOnly day, DateTimeOffset rollAt, CancellationToken cancellationToken)
+    {
+        await _gate.WaitAsync(cancellationToken).ConfigureAwait(false);
+        try
+        {
+            var now = _time.GetUtcNow();
+            var batch = new ExposureLogBatch();
+            var books = AddBookSnapshots(batch, ExposureLogKinds.CloseSnapshot, now, day);
+            batch.Add(ExposureLogKinds.DayClosed, rollAt, new ExposureLogCause(null, "day-roll"), new Dictionary<string, object?>
+            {
+                ["businessDate"] = Day(day),
+                ["rollAt"] = rollAt.UtcDateTime.ToString("yyyy-MM-dd'T'HH:mm:ss'Z'", CultureInfo.InvariantCulture),
+                ["books"] = books,
+            });
+            await WriteLogAsync(batch, cancellationToken).ConfigureAwait(false);
+            return new DayClose(day, rollAt, _log.LastSeq, _log.LastMac, books);
+        }
+        finally
+        {
+            _gate.Release();
+        }
+    }
+
+    /// <summary>
+    /// Records a stop (at any time of day; not a close): each valued book's <c>stop-snapshot</c>, then one
+    /// <c>service-stopped</c> record. Skipped (logged) while storage fails: the lock is held by a stalled write.
+    /// </summary>
+    public async Task RecordStopAsync(DateOnly day, CancellationToken cancellationToken)
+    {
+        if (_storage.IsFailing)
+        {
+            LogStopSkipped(string.Join("; ", _storage.Faults));
+            return;
+        }
+        await _gate.WaitAsync(cancellationToken).ConfigureAwait(false);
+        try
+        {
+            var now = _time.GetUtcNow();
+            var batch = new ExposureLogBatch();
+            var books = AddBookSnapshots(batch, ExposureLogKinds.StopSnapshot, now, day);
+            batch.Add(ExposureLogKinds.ServiceStopped, now, new ExposureLogCause(null, "service-stop"), new Dictionary<string, object?>
+            {
+                ["businessDate"] = Day(day),
+                ["books"] = books,
+            });
+            await WriteLogAsync(batch, cancellationToken).ConfigureAwait(false);
+        }
+        finally
+        {
+            _gate.Release();
+        }
+    }
+
+    /// <summary>Adds a record of <paramref name="kind"/> per valued book (book order); returns how many.</summary>
+    private int AddBookSnapshots(ExposureLogBatch batch, string kind, DateTimeOffset now, DateOnly? day)
+    {
+        var curves = _engine.CurvesInUse();
+        var count = 0;
+        foreach (var book in _engine.Books.Values.Where(b => b.Exposures is not null).OrderBy(b => b.Id, StringComparer.Ordinal))
+        {
+            var payload = BookPayload(book.Id, book.Exposures!.Totals, curves);
+            if (day is { } d)
+            {
+                payload["businessDate"] = Day(d);
+            }
+            AddProvisional(payload, book.ProvisionalReasons);
+            batch.Add(kind, now, new ExposureLogCause(null, "timer"), payload);
+            count++;
+        }
+        return count;
+    }
+
+    private static string Day(DateOnly day) => day.ToString("yyyy-MM-dd", CultureInfo.InvariantCulture);
+
     private async Task CommitAsync(EngineResult result, Cause cause, DateTimeOffset now, CancellationToken cancellationToken, object? alert = null)
     {
         var logCause = LogCause(cause);
         var batch = new ExposureLogBatch();
         var curves = EventMapper.CurveVersions(_engine);
         var messages = new List<object>();
-        if (alert is not null)
-        {
-            messages.Add(alert);
-        }
         foreach (var outcome in result.Curves)
         {
             var report = outcome.Result?.Report;
@@ -382,8 +464,20 @@ public sealed partial class RiskPipeline
         }
         _metrics.QueueLag.Record((now - cause.EventTime).TotalMilliseconds);
         // Published by the outbox, in order, outside this lock: 1,000 book events awaited here held every quote and
-        // trade behind the broker's round trips (measured with `monitor load`).
-        await _outbox.EnqueueAsync(messages, books, cancellationToken).ConfigureAwait(false);
+        // trade behind the broker's round trips (measured with `monitor load`). Each event has one record of the batch,
+        // in the same order: its seq and mac give the event's stable id, and the outbox keeps it until confirmed.
+        var recorded = new OutboxEntry[messages.Count];
+        for (var i = 0; i < messages.Count; i++)
+        {
+            var (seq, mac) = batch.Records[i];
+            recorded[i] = new OutboxEntry(seq, OutboxEntry.IdOf(seq, mac), messages[i]);
+        }
+        if (alert is not null)
+        {
+            // The reload's alert has its record apart (limits-reloaded, written before): published first, kept in memory only.
+            await _outbox.EnqueueAsync([alert], [], cancellationToken).ConfigureAwait(false);
+        }
+        await _outbox.EnqueueRecordedAsync(recorded, books, keep => _storage.RunAsync(StorageFaultGate.ExposureLog, keep, cancellationToken), cancellationToken).ConfigureAwait(false);
     }
 
     /// <summary>
@@ -486,8 +580,8 @@ public sealed partial class RiskPipeline
     [LoggerMessage(Level = LogLevel.Warning, Message = "Quote for {InstrumentId} dropped: {Reason}")]
     private partial void LogQuoteDropped(string instrumentId, string reason);
 
-    [LoggerMessage(Level = LogLevel.Warning, Message = "Day-end snapshot not written: storage is failing ({Faults})")]
-    private partial void LogDayEndSkipped(string faults);
+    [LoggerMessage(Level = LogLevel.Warning, Message = "Stop record not written: storage is failing ({Faults})")]
+    private partial void LogStopSkipped(string faults);
 
     [LoggerMessage(Level = LogLevel.Warning, Message = "Curve {Curve} refit rejected, last good curve kept: {Reasons}")]
     private partial void LogCurveRejected(string curve, string reasons);

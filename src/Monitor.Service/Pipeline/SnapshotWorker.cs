@@ -2,12 +2,16 @@ using Microsoft.Extensions.Hosting;
 using Microsoft.Extensions.Logging;
 using Microsoft.Extensions.Options;
 using Monitor.Service.Audit;
+using Monitor.Service.Engine;
 using Monitor.Service.Hosting;
 
 namespace Monitor.Service.Pipeline;
 
-/// <summary>Writes a snapshot of every book to the exposure log at the configured interval, and a day-end snapshot when the service stops.</summary>
-public sealed partial class SnapshotWorker(RiskPipeline pipeline, IOptions<MonitorOptions> options, TimeProvider time, ILogger<SnapshotWorker> logger)
+/// <summary>
+/// Writes a snapshot of every book to the exposure log at the configured interval, and the stop record (each book's
+/// <c>stop-snapshot</c>, then <c>service-stopped</c>) when the service stops: a stop, not a day's close (<see cref="DayCloseWorker"/>).
+/// </summary>
+public sealed partial class SnapshotWorker(RiskPipeline pipeline, IOptions<MonitorOptions> options, BusinessDayRoll roll, TimeProvider time, ILogger<SnapshotWorker> logger)
     : BackgroundService
 {
     protected override async Task ExecuteAsync(CancellationToken stoppingToken)
@@ -36,7 +40,7 @@ public sealed partial class SnapshotWorker(RiskPipeline pipeline, IOptions<Monit
         await base.StopAsync(cancellationToken).ConfigureAwait(false);
         try
         {
-            await pipeline.SnapshotAsync(ExposureLogKinds.DayEnd, cancellationToken).ConfigureAwait(false);
+            await pipeline.RecordStopAsync(roll.BusinessDateOf(time.GetUtcNow()), cancellationToken).ConfigureAwait(false);
         }
         catch (ExposureLogWriteException ex)
         {

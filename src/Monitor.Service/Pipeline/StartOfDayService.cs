@@ -12,7 +12,7 @@ namespace Monitor.Service.Pipeline;
 
 /// <summary>
 /// Runs once the bus is up: builds the engine (instruments, positions, limits: a bad file stops the start; then
-/// today's trade journal replayed), reports what the replay did and logs and publishes its refit, then fits the opening curves from the opening quotes file when one is configured, publishing the result.
+/// every journal day since the start-of-day state replayed), reports what the replay did and logs and publishes its refit, then fits the opening curves from the opening quotes file when one is configured, publishing the result.
 /// </summary>
 public sealed partial class StartOfDayService(
     RiskPipeline pipeline, EngineRecovery recovery, IOptions<MonitorOptions> options, IOptions<ExposureLogOptions> log,
@@ -27,10 +27,18 @@ public sealed partial class StartOfDayService(
         {
             LogNoLimits(options.Value.LimitsFile);
         }
-        var replay = recovery.Result;
-        if (replay.Applied + replay.Duplicates + replay.Superseded + replay.QuotesAccepted > 0 || recovery.Journal.Problems.Count > 0)
+        if (recovery.StartOfDay is { } state)
         {
-            LogRecovered(replay.Applied, replay.Duplicates, replay.Superseded, replay.QuotesAccepted, replay.RejectedTrades.Count + replay.RejectedQuotes.Count);
+            LogStartOfDay(state.Reason, string.Join(", ", recovery.Journal.Days.Select(Path.GetFileName)));
+        }
+        var replay = recovery.Result;
+        if (replay.Applied + replay.Duplicates + replay.Superseded + replay.Definitions + replay.QuotesAccepted > 0 || recovery.Journal.Problems.Count > 0)
+        {
+            LogRecovered(replay.Applied, replay.Duplicates, replay.Superseded, replay.Definitions, replay.QuotesAccepted, replay.RejectedQuotes.Count);
+        }
+        foreach (var refused in replay.RejectedQuotes)
+        {
+            LogQuoteNotReplayed(refused);
         }
         foreach (var problem in recovery.Journal.Problems)
         {
@@ -67,7 +75,7 @@ public sealed partial class StartOfDayService(
         }
     }
 
-    /// <summary>Stopped after the refit loop and the day-end snapshot (hosted services stop in reverse order), before the outbox and the bus.</summary>
+    /// <summary>Stopped after the refit loop and the stop records (hosted services stop in reverse order), before the outbox and the bus.</summary>
     /// <remarks>Reads nothing under the pipeline's lock: a write stalled by a failing disk may hold it.</remarks>
     public Task StopAsync(CancellationToken cancellationToken)
     {
@@ -75,17 +83,23 @@ public sealed partial class StartOfDayService(
         return Task.CompletedTask;
     }
 
-    [LoggerMessage(Level = LogLevel.Information, Message = "Monitor stopping for valuation date {ValuationDate:yyyy-MM-dd}: refits ended, day-end snapshot done; publishing what is left, then closing the bus")]
+    [LoggerMessage(Level = LogLevel.Information, Message = "Monitor stopping for valuation date {ValuationDate:yyyy-MM-dd}: refits ended, stop records written; publishing what is left, then closing the bus")]
     private partial void LogStopped(DateOnly valuationDate);
 
     [LoggerMessage(Level = LogLevel.Information, Message = "Monitor started for valuation date {ValuationDate:yyyy-MM-dd}: {Books} books, {Instruments} instruments")]
     private partial void LogStarted(DateOnly valuationDate, int books, int instruments);
 
+    [LoggerMessage(Level = LogLevel.Information, Message = "Start-of-day state: {Reason}; journal files replayed: {Days}")]
+    private partial void LogStartOfDay(string reason, string days);
+
+    [LoggerMessage(Level = LogLevel.Information, Message = "Recovered from the trade journal: {Applied} trades applied, {Duplicates} duplicates, {Superseded} superseded, {Definitions} instrument definitions, {Quotes} quotes kept, {Rejected} quotes refused")]
+    private partial void LogRecovered(int applied, int duplicates, int superseded, int definitions, int quotes, int rejected);
+
+    [LoggerMessage(Level = LogLevel.Warning, Message = "Journalled quote not replayed: {Refusal}")]
+    private partial void LogQuoteNotReplayed(string refusal);
+
     [LoggerMessage(Level = LogLevel.Warning, Message = "The limits file {Path} lists no limits: no book, desk or firm is judged until limits are given")]
     private partial void LogNoLimits(string path);
-
-    [LoggerMessage(Level = LogLevel.Information, Message = "Recovered from today's trade journal: {Applied} trades applied, {Duplicates} duplicates, {Superseded} superseded, {Quotes} quotes kept, {Rejected} refused")]
-    private partial void LogRecovered(int applied, int duplicates, int superseded, int quotes, int rejected);
 
     [LoggerMessage(Level = LogLevel.Warning, Message = "{Count} journalled trades had no trade-applied record (a crash between the journal and the log); written now with cause journal-replay")]
     private partial void LogAuditRestored(int count);

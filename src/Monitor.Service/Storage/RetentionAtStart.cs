@@ -1,15 +1,14 @@
 using Microsoft.Extensions.Hosting;
-using Microsoft.Extensions.Options;
-using Monitor.Service.Audit;
+using Monitor.Service.Engine;
 
 namespace Monitor.Service.Storage;
 
-/// <summary>Runs <see cref="DayFileRetention"/> once at start for the current business day (of the exposure log's day offset).</summary>
-public sealed class RetentionAtStart(DayFileRetention retention, TimeProvider time, IOptions<ExposureLogOptions> log) : IHostedService
+/// <summary>Runs <see cref="DayFileRetention"/> once at start for the current business day (of the configured day roll, <c>Monitor:BusinessDay</c>).</summary>
+public sealed class RetentionAtStart(DayFileRetention retention, TimeProvider time, BusinessDayRoll roll) : IHostedService
 {
     public Task StartAsync(CancellationToken cancellationToken)
     {
-        retention.Apply(ExposureLogFiles.DayOf(time.GetUtcNow(), log.Value.BusinessDayUtcOffset));
+        retention.Apply(roll.BusinessDateOf(time.GetUtcNow()));
         return Task.CompletedTask;
     }
 

@@ -84,7 +84,7 @@ public sealed class ServiceProcess : IDisposable
     }
 
     /// <summary>
-    /// SIGTERM (a service manager's stop): the host stops cleanly and writes the day-end snapshot. Returns the exit code.
+    /// SIGTERM (a service manager's stop): the host stops cleanly and writes the stop record (stop-snapshot per book, then service-stopped). Returns the exit code.
     /// Not SIGINT: a shell starts background jobs with SIGINT ignored and the child processes inherit that, so a test
     /// run started with `&amp;` (or from a CI runner doing so) would never see the service stop.
     /// </summary>

@@ -12,7 +12,7 @@ namespace Monitor.Faults.Tests.Support;
 public sealed class TradeStream
 {
     // Government bonds in the rates books only: the test market's spread group UTIL-A has 3 bonds, too few for a
-    // spread curve (a fit needs 4), so a book holding a credit bond is never valued and writes no day-end snapshot.
+    // spread curve (a fit needs 4), so a book holding a credit bond is never valued and writes no stop-snapshot.
     private static readonly string[] Books = ["RATES-CORE", "RATES-CURVE"];
 
     private readonly Dictionary<string, (int Version, string Book, string Instrument, double Face, bool Cancelled)> _last = new(StringComparer.Ordinal);

@@ -142,7 +142,7 @@ public class ExposureLogFailureTests
         {
             writer.Append(ExposureLogKinds.Snapshot, clock.GetUtcNow(), Cause(1), Figures(1));
             fail = true;
-            Assert.Throws<ExposureLogWriteException>(() => writer.Append(ExposureLogKinds.DayEnd, clock.GetUtcNow(), Cause(2), Figures(2)));
+            Assert.Throws<ExposureLogWriteException>(() => writer.Append(ExposureLogKinds.DayClosed, clock.GetUtcNow(), Cause(2), Figures(2)));
             fail = false;
             clock.Advance(TimeSpan.FromDays(1));
             var next = writer.Append(ExposureLogKinds.Snapshot, clock.GetUtcNow(), Cause(2), Figures(2));

@@ -1,5 +1,6 @@
 using System.Text.Json;
 using Monitor.Service.Audit;
+using Monitor.Service.Engine;
 using Monitor.Service.Tests.Support;
 using static Monitor.Service.Tests.Audit.ExposureLogTestData;
 
@@ -50,15 +51,16 @@ public class ExposureLogWriterTests
     }
 
     [Fact]
-    public void The_business_day_is_the_date_of_the_written_time_plus_the_configured_offset()
+    public void The_day_file_is_named_by_the_business_date_of_the_written_time()
     {
         using var folder = new TempFolder();
         var clock = new ManualClock(new DateTimeOffset(2026, 12, 2, 3, 0, 0, TimeSpan.Zero));
         var options = Options(folder.Path);
-        options.BusinessDayUtcOffset = TimeSpan.FromHours(-5); // 03:00 UTC = 22:00 the day before at UTC-5
-        using (var writer = new ExposureLogWriter(TestKey.Value, options, clock))
+        // 03:00 UTC = 22:00 the day before in New York (EST, UTC-5), before a 23:00 roll.
+        var roll = new BusinessDayRoll(new TimeOnly(23, 0), TimeZoneInfo.FindSystemTimeZoneById("America/New_York"));
+        using (var writer = new ExposureLogWriter(TestKey.Value, options, clock, roll))
         {
-            writer.Append(ExposureLogKinds.DayEnd, clock.Now, Cause(1), Figures(1));
+            writer.Append(ExposureLogKinds.DayClosed, clock.Now, Cause(1), Figures(1));
         }
 
         Assert.True(File.Exists(ExposureLogFiles.PathOf(folder.Path, Day1)));
@@ -117,7 +119,7 @@ public class ExposureLogWriterTests
         ExposureLogRecord last;
         using (var first = new ExposureLogWriter(TestKey.Value, Options(folder.Path), clock))
         {
-            last = first.Append(ExposureLogKinds.DayEnd, clock.GetUtcNow(), Cause(1), Figures(1));
+            last = first.Append(ExposureLogKinds.DayClosed, clock.GetUtcNow(), Cause(1), Figures(1));
         }
 
         clock.Advance(TimeSpan.FromDays(3)); // a weekend in between: the previous file is not yesterday's
@@ -193,9 +195,6 @@ public class ExposureLogWriterTests
     {
         var ex = Assert.Throws<ArgumentException>(() => new ExposureLogWriter(TestKey.Value, new ExposureLogOptions { Folder = " " }, TimeProvider.System));
         Assert.Contains("ExposureLog:Folder", ex.Message, StringComparison.Ordinal);
-
-        var offset = new ExposureLogOptions { Folder = "x", BusinessDayUtcOffset = TimeSpan.FromHours(15) };
-        Assert.Contains("ExposureLog:BusinessDayUtcOffset", Assert.Single(offset.Validate()), StringComparison.Ordinal);
     }
 
     [Fact]

@@ -49,6 +49,24 @@ public sealed class StartupValidationTests : IDisposable
         Assert.Contains("Monitor:ConflationWindow", ex.Message, StringComparison.Ordinal);
     }
 
+    [Theory]
+    [InlineData("Monitor:BusinessDay:RollTime", "5pm")]
+    [InlineData("Monitor:BusinessDay:TimeZone", "Mars/Olympus")]
+    [InlineData("Monitor:BusinessDay:TimeZone", "Eastern Standard Time")]
+    public async Task A_bad_business_day_roll_names_the_key(string key, string value)
+    {
+        var ex = await StartFails(s => s[key] = value);
+        Assert.Contains(key, ex.Message, StringComparison.Ordinal);
+        Assert.Contains(value, ex.Message, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public async Task The_retired_business_day_offset_is_refused_with_its_replacement()
+    {
+        var ex = await StartFails(s => s["ExposureLog:BusinessDayUtcOffset"] = "-05:00:00");
+        Assert.Contains("Monitor:BusinessDay:TimeZone", ex.Message, StringComparison.Ordinal);
+    }
+
     [Fact]
     public async Task RabbitMq_without_credentials_names_the_keys()
     {

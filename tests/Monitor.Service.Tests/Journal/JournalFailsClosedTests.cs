@@ -104,7 +104,7 @@ public sealed class JournalFailsClosedTests : IDisposable
         await BookTwoTradesAsync();
         File.Move(JournalFile, JournalFile + ".set-aside");
 
-        await using var second = await ServiceUnderTest.StartAsync(root: _root.Path, extra: new Dictionary<string, string?> { ["Journal:AcceptLoss"] = "true" });
+        await using var second = await ServiceUnderTest.StartAsync(root: _root.Path, settings: new Dictionary<string, string?> { ["Journal:AcceptLoss"] = "true" });
         await second.Pipeline.WhenPublishedAsync();
 
         var losses = File.ReadLines(Directory.GetFiles(second.LogFolder, "exposures-*.jsonl").Single())

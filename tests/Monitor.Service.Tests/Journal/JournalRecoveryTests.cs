@@ -55,7 +55,6 @@ public sealed class JournalRecoveryTests
 
         Assert.Equal(6, result.Applied); // R-1 v1, R-2 v1, C-1, R-1 v2, R-2 v2 (cancel), C-2
         Assert.Equal(1, result.Duplicates);
-        Assert.Empty(result.RejectedTrades);
         Assert.Empty(result.RejectedQuotes);
         Assert.Equal(CloseQuotes().Count, result.QuotesAccepted);
         Assert.Contains(result.Refit.Curves, c => c.Accepted);

@@ -73,12 +73,13 @@ public sealed class TradeJournalTests
     }
 
     [Fact]
-    public async Task The_business_day_offset_picks_the_day_file()
+    public async Task The_business_day_roll_picks_the_day_file()
     {
         using var folder = new TempFolder();
-        // 02:00Z with a -05:00 offset is still 2026-05-31 (a fixed offset, no daylight saving).
+        // 02:00Z on 1 June is 22:00 on 31 May in New York (EDT, UTC-4): before a 23:00 roll, so business day 31 May.
         var clock = new ManualClock(new DateTimeOffset(2026, 6, 1, 2, 0, 0, TimeSpan.Zero));
-        await using (var journal = new TradeJournal(TestKey.Value, new JournalOptions { Folder = folder.Path, BusinessDayUtcOffset = TimeSpan.FromHours(-5) }, clock))
+        var roll = new BusinessDayRoll(new TimeOnly(23, 0), TimeZoneInfo.FindSystemTimeZoneById("America/New_York"));
+        await using (var journal = new TradeJournal(TestKey.Value, new JournalOptions { Folder = folder.Path }, clock, roll))
         {
             await journal.AppendTradeAsync(Trade("T-1", 1, TradeAction.New, "RATES-CORE", "VGB-2030-08", 1e6));
         }

@@ -37,7 +37,7 @@ public sealed class CheckpointTests
 
         var result = ExposureLogVerifier.VerifyFolder(TestKey.Value, logFolder, checkpointFolder: checkpoints);
         Assert.True(result.Intact, string.Join("; ", result.Problems));
-        // The stop cuts one more checkpoint. (The Generic Host stops CheckpointWorker after SnapshotWorker's day-end records;
+        // The stop cuts one more checkpoint. (The Generic Host stops CheckpointWorker after SnapshotWorker's stop records;
         // the test harness stops hosted services in its own order, so here records may follow it, reported as unanchored.)
         Assert.True(result.AnchoredSeq > 0);
         Assert.Equal(result.LastSeq - result.AnchoredSeq, result.Unanchored);

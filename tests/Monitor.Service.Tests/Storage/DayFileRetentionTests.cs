@@ -144,7 +144,7 @@ public sealed class DayFileRetentionTests : IDisposable
     private static string JournalPath(string folder, DateOnly day) => Monitor.Service.Journal.JournalFiles.PathOf(folder, day);
 
     /// <summary>
-    /// Real exposure-log day files (one chain, a snapshot each day, a day-end record on the days up to
+    /// Real exposure-log day files (one chain, a snapshot each day, a service-stopped record on the days up to
     /// <paramref name="closedUpTo"/> except <paramref name="open"/>) and a journal file beside each day.
     /// </summary>
     private void WriteDays(DateOnly first, int count, DateOnly closedUpTo, DateOnly? open = null, string? logFolder = null, string? journalFolder = null)
@@ -162,7 +162,7 @@ public sealed class DayFileRetentionTests : IDisposable
             if (day <= closedUpTo && day != open)
             {
                 clock.SetUtcNow(new DateTimeOffset(day.ToDateTime(new TimeOnly(18, 0)), TimeSpan.Zero));
-                writer.Append(ExposureLogKinds.DayEnd, clock.GetUtcNow(), new ExposureLogCause(null, "timer"), new Dictionary<string, object?> { ["book"] = "RATES-CORE" });
+                writer.Append(ExposureLogKinds.ServiceStopped, clock.GetUtcNow(), new ExposureLogCause(null, "timer"), new Dictionary<string, object?> { ["book"] = "RATES-CORE" });
             }
             File.WriteAllText(JournalPath(journalFolder, day), "{}\n");
         }

@@ -33,7 +33,7 @@ public sealed class ServiceUnderTest : IAsyncDisposable
         Time = time;
         LogFolder = logFolder;
         // The pipeline first: the container disposes in reverse order, and the harness stops the hosted services
-        // (the day-end snapshot needs the pipeline) when it is disposed.
+        // (the stop record needs the pipeline) when it is disposed.
         Pipeline = provider.GetRequiredService<RiskPipeline>();
         Harness = provider.GetRequiredService<ITestHarness>();
     }
@@ -68,38 +68,51 @@ public sealed class ServiceUnderTest : IAsyncDisposable
     /// <param name="limitsFile">A limits file other than Data/limits.json.</param>
     /// <param name="logStream">Wraps each exposure-log day file's stream (to inject write failures).</param>
     /// <param name="root">A folder the caller keeps (to restart a service on the same log and journal); default a new temporary one.</param>
-    /// <param name="extra">Settings added to (or replacing) the defaults, e.g. <c>Journal:AcceptLoss</c>.</param>
+    /// <param name="now">The clock at start; default <see cref="TestMarket.Now"/>.</param>
+    /// <param name="settings">Configuration keys to add or replace (a null value removes the key), e.g. <c>Journal:AcceptLoss</c>.</param>
+    /// <param name="services">Registrations added after the service's own (e.g. an IDayCloseListener).</param>
     /// <param name="logging">Replaces the default logging (e.g. a Serilog logger with a capturing sink).</param>
-    public static async Task<ServiceUnderTest> StartAsync(string? limitsFile = null, Func<Stream, Stream>? logStream = null, string? root = null, IReadOnlyDictionary<string, string?>? extra = null, Action<IServiceCollection>? logging = null)
+    public static async Task<ServiceUnderTest> StartAsync(string? limitsFile = null, Func<Stream, Stream>? logStream = null, string? root = null,
+        DateTimeOffset? now = null, IReadOnlyDictionary<string, string?>? settings = null, Action<IServiceCollection>? services = null,
+        Action<IServiceCollection>? logging = null)
     {
         var folder = root is null ? new TempFolder() : null;
         var logFolder = Path.Combine(root ?? folder!.Path, "exposure-log");
-        var settings = Settings(logFolder, limitsFile);
-        foreach (var (name, value) in extra ?? new Dictionary<string, string?>())
+        var values = Settings(logFolder, limitsFile);
+        foreach (var (key, value) in settings ?? new Dictionary<string, string?>())
         {
-            settings[name] = value;
+            if (value is null)
+            {
+                values.Remove(key);
+            }
+            else
+            {
+                values[key] = value;
+            }
         }
-        var configuration = new ConfigurationBuilder().AddInMemoryCollection(settings).Build();
-        var time = new FakeTimeProvider(TestMarket.Now);
-        var services = new ServiceCollection();
+        var configuration = new ConfigurationBuilder().AddInMemoryCollection(values).Build();
+        var time = new FakeTimeProvider(now ?? TestMarket.Now);
+        var collection = new ServiceCollection();
         if (logging is null)
         {
-            services.AddLogging();
+            collection.AddLogging();
         }
         else
         {
-            logging(services);
+            logging(collection);
         }
-        services.AddSingleton<TimeProvider>(time);
-        services.AddMonitorServiceCore(configuration, null, static (s, bus) => s.AddMassTransitTestHarness(bus));
+        collection.AddSingleton<TimeProvider>(time);
+        collection.AddMonitorServiceCore(configuration, null, static (s, bus) => s.AddMassTransitTestHarness(bus));
+        services?.Invoke(collection);
         if (logStream is not null)
         {
-            services.AddSingleton(sp => new ExposureLogWriter(sp.GetRequiredService<Monitor.Service.Storage.RecordKey>(), sp.GetRequiredService<IOptions<ExposureLogOptions>>().Value, sp.GetRequiredService<TimeProvider>(), logStream));
+            collection.AddSingleton(sp => new ExposureLogWriter(sp.GetRequiredService<Monitor.Service.Storage.RecordKey>(), sp.GetRequiredService<IOptions<ExposureLogOptions>>().Value,
+                sp.GetRequiredService<TimeProvider>(), logStream, sp.GetRequiredService<Monitor.Service.Engine.BusinessDayRoll>()));
         }
-        // TestTimeout: past it the harness cancels its token and the stop (day-end snapshot) fails; tests that wait on the
+        // TestTimeout: past it the harness cancels its token and the stop (stop record) fails; tests that wait on the
         // limits file's polling watcher run longer than the 30 s default on a loaded machine.
-        services.Configure<TestHarnessOptions>(o => (o.TestInactivityTimeout, o.TestTimeout) = (TimeSpan.FromSeconds(2), TimeSpan.FromMinutes(2)));
-        var provider = services.BuildServiceProvider(validateScopes: true);
+        collection.Configure<TestHarnessOptions>(o => (o.TestInactivityTimeout, o.TestTimeout) = (TimeSpan.FromSeconds(2), TimeSpan.FromMinutes(2)));
+        var provider = collection.BuildServiceProvider(validateScopes: true);
         var service = new ServiceUnderTest(provider, folder, time, logFolder);
         await service.Harness.Start();
         return service;
@@ -147,6 +160,16 @@ public sealed class ServiceUnderTest : IAsyncDisposable
 
     public ExposureLogVerification VerifyLog() => ExposureLogVerifier.VerifyFolder(TestKey.Value, LogFolder);
 
+    /// <summary>Every line of every exposure-log day file in <paramref name="logFolder"/>, oldest day first.</summary>
+    public static IReadOnlyList<string> LogLines(string logFolder) =>
+        Directory.Exists(logFolder)
+            ? [.. Directory.GetFiles(logFolder, "exposures-*.jsonl").Order(StringComparer.Ordinal).SelectMany(File.ReadAllLines)]
+            : [];
+
+    /// <summary>The log lines of one record kind.</summary>
+    public static IReadOnlyList<string> LogLines(string logFolder, string kind) =>
+        [.. LogLines(logFolder).Where(l => l.Contains($"\"kind\":\"{kind}\"", StringComparison.Ordinal))];
+
     public static BondQuoted ToMessage(BondQuote q) => new()
     {
         QuoteId = Guid.NewGuid().ToString("N"),
@@ -159,7 +182,7 @@ public sealed class ServiceUnderTest : IAsyncDisposable
         Source = q.Source ?? "test",
     };
 
-    public static TradeBooked Trade(string id, int version, string action, string book, string instrument, double face) => new()
+    public static TradeBooked Trade(string id, int version, string action, string book, string instrument, double face, DateTimeOffset? tradeTime = null) => new()
     {
         TradeId = id,
         Version = version,
@@ -168,7 +191,7 @@ public sealed class ServiceUnderTest : IAsyncDisposable
         InstrumentId = instrument,
         FaceAmount = face,
         CleanPrice = 100,
-        TradeTime = TestMarket.Now.AddMinutes(-1),
+        TradeTime = tradeTime ?? TestMarket.Now.AddMinutes(-1),
     };
 
     /// <summary>Polls a condition every 10 ms, failing after 30 s so a broken pipeline cannot hang the run.</summary>
