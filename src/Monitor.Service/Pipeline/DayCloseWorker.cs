@@ -13,11 +13,17 @@ namespace Monitor.Service.Pipeline;
 public sealed partial class DayCloseWorker(RiskPipeline pipeline, BusinessDayRoll roll, IEnumerable<IDayCloseListener> listeners, TimeProvider time, ILogger<DayCloseWorker> logger)
     : BackgroundService
 {
+    // The day the service started in, read when the host builds the worker: .NET 10 runs ExecuteAsync on a pool
+    // thread, so a clock that passes the roll before the loop's first read must still close the starting day.
+    private readonly DateTimeOffset _startedAt = time.GetUtcNow();
+
     protected override async Task ExecuteAsync(CancellationToken stoppingToken)
     {
+        var first = true;
         while (!stoppingToken.IsCancellationRequested)
         {
-            var now = time.GetUtcNow();
+            var now = first ? _startedAt : time.GetUtcNow();
+            first = false;
             var day = roll.BusinessDateOf(now);
             var rollAt = roll.EndOf(day);
             // Timers can fire a little early: wait again until the clock has really passed the roll.
